@@ -1,0 +1,71 @@
+import "server-only";
+import { auth } from "./auth";
+import { can, type Action, type Role } from "./permissions";
+import { getMembership, listMemberships, type Membership } from "@/db/studios";
+import { AppError, forbidden, unauthorized } from "@/lib/errors";
+
+/** The cookie that names the studio chosen in the studio switcher. */
+export const ACTIVE_STUDIO_COOKIE = "tapernote_studio";
+
+export type SessionUser = { id: string; name: string; email: string; emailVerified: boolean };
+
+/** Who is asking and in which studio they act. */
+export type Actor = {
+  user: SessionUser;
+  studioId: string;
+  studioName: string;
+  role: Role;
+  memberId: string;
+  memberships: Membership[];
+};
+
+function cookieValue(headers: Headers, name: string): string | undefined {
+  const header = headers.get("cookie");
+  if (!header) return undefined;
+  for (const part of header.split(";")) {
+    const eq = part.indexOf("=");
+    if (eq < 0) continue;
+    if (part.slice(0, eq).trim() === name) return decodeURIComponent(part.slice(eq + 1).trim());
+  }
+  return undefined;
+}
+
+export async function sessionUser(headers: Headers): Promise<SessionUser | null> {
+  const session = await auth().api.getSession({ headers });
+  if (!session) return null;
+  const { id, name, email, emailVerified } = session.user;
+  return { id, name, email, emailVerified };
+}
+
+/**
+ * The caller's actor: the signed-in user in their active studio (the switcher's
+ * cookie when it names one of their studios, else their first studio).
+ * Returns null when signed out; `studioId` is "" when the user has no studio.
+ */
+export async function actorFromHeaders(headers: Headers): Promise<Actor | null> {
+  const user = await sessionUser(headers);
+  if (!user) return null;
+  const wanted = cookieValue(headers, ACTIVE_STUDIO_COOKIE);
+  const memberships = await listMemberships(user.id);
+  const active = (wanted && memberships.find((m) => m.studioId === wanted)) || memberships[0];
+  if (!active) return { user, studioId: "", studioName: "", role: "listener", memberId: "", memberships };
+  return { user, studioId: active.studioId, studioName: active.studioName, role: active.role, memberId: active.memberId, memberships };
+}
+
+/** The actor of an API request; 401 when signed out, 404 when the user belongs to no studio. */
+export async function requireActor(request: Request): Promise<Actor> {
+  const actor = await actorFromHeaders(request.headers);
+  if (!actor) throw unauthorized();
+  if (!actor.studioId) throw new AppError("not_found", "You are not a member of any studio yet.");
+  return actor;
+}
+
+/** Throws 403 unless the actor's role allows the action (see permissions.ts). */
+export function requireRole(actor: Actor, action: Action): void {
+  if (!can(actor.role, action)) throw forbidden();
+}
+
+/** True when the user is a member of the studio (for switching studios). */
+export async function isMember(userId: string, studioId: string): Promise<boolean> {
+  return (await getMembership(userId, studioId)) !== null;
+}

@@ -1,0 +1,41 @@
+/** Plain texts of Tapernote's e-mails; each returns the subject, a text part and a simple HTML part. */
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+}
+
+function page(lines: string[], link: { href: string; label: string }): string {
+  return `<div style="font-family:sans-serif;color:#1D2433;background:#FAF7F0;padding:24px">${lines
+    .map((l) => `<p>${escapeHtml(l)}</p>`)
+    .join("")}<p><a href="${escapeHtml(link.href)}" style="color:#B4532A">${escapeHtml(link.label)}</a></p></div>`;
+}
+
+export function verifyEmailMail(name: string, url: string) {
+  const lines = [`Hello ${name},`, "please confirm your e-mail address for Tapernote by opening this link:"];
+  return {
+    subject: "Confirm your e-mail address for Tapernote",
+    text: `${lines.join("\n")}\n\n${url}\n\nIf you did not sign up, ignore this message.`,
+    html: page(lines, { href: url, label: "Confirm my e-mail address" }),
+  };
+}
+
+export function resetPasswordMail(name: string, url: string) {
+  const lines = [`Hello ${name},`, "someone asked to reset your Tapernote password. To choose a new one, open:"];
+  return {
+    subject: "Reset your Tapernote password",
+    text: `${lines.join("\n")}\n\n${url}\n\nThe link works for one hour. If it was not you, ignore this message.`,
+    html: page(lines, { href: url, label: "Choose a new password" }),
+  };
+}
+
+export function invitationMail(studioName: string, inviterName: string, role: string, url: string) {
+  const lines = [
+    `${inviterName} invited you to the studio "${studioName}" on Tapernote as ${role}.`,
+    "To accept, open this link (sign in or create an account with this e-mail address):",
+  ];
+  return {
+    subject: `Invitation to ${studioName} on Tapernote`,
+    text: `${lines.join("\n")}\n\n${url}\n\nThe invitation expires in 7 days.`,
+    html: page(lines, { href: url, label: "Accept the invitation" }),
+  };
+}

@@ -1,0 +1,21 @@
+// better-auth's schema CLI uses Object.groupBy (Node 21+); this machine runs Node 20.
+if (!Object.groupBy) {
+  Object.groupBy = (items, key) => {
+    const out = Object.create(null);
+    let i = 0;
+    for (const item of items) (out[key(item, i++)] ??= []).push(item);
+    return out;
+  };
+}
+if (!Map.groupBy) {
+  Map.groupBy = (items, key) => {
+    const out = new Map();
+    let i = 0;
+    for (const item of items) {
+      const k = key(item, i++);
+      if (!out.has(k)) out.set(k, []);
+      out.get(k).push(item);
+    }
+    return out;
+  };
+}

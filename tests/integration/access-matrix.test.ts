@@ -1,0 +1,140 @@
+/**
+ * The access-control matrix: every protected operation × every kind of caller,
+ * asserting the exact status. A cell left out of MATRIX fails the completeness test.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { call, signUpVerified, startTestApp, type TestApp } from "../support/app";
+
+const PRINCIPALS = ["signedOut", "outsider", "listener", "editor", "owner"] as const;
+type Principal = (typeof PRINCIPALS)[number];
+
+let app: TestApp;
+const cookies: Partial<Record<Principal, string>> = {};
+let studioId = "";
+let seq = 0;
+
+async function json(res: Response) {
+  return res.status === 204 ? null : res.json();
+}
+
+async function asOwner(method: string, path: string, body?: unknown) {
+  const res = await call(method, path, { cookie: cookies.owner, body });
+  if (res.status >= 300) throw new Error(`setup ${method} ${path}: ${res.status} ${await res.text()}`);
+  return json(res);
+}
+
+async function newProject(): Promise<string> {
+  const { project } = await asOwner("POST", "/api/v1/projects", { name: `Matrix project ${++seq}` });
+  return project.id;
+}
+
+/** A fresh non-owner member of the studio (so removing or re-roling it is always legal). */
+async function newMember(): Promise<string> {
+  const email = `member${++seq}@example.net`;
+  const cookie = await signUpVerified(email);
+  const { invitation } = await asOwner("POST", "/api/v1/invitations", { email, role: "listener" });
+  void invitation;
+  const { readMailbox } = await import("@/lib/mail/mailbox");
+  const [mail] = (await readMailbox({ to: email })).filter((m) => m.subject.startsWith("Invitation"));
+  const token = decodeURIComponent(mail!.text.match(/invitations\/(\S+)/)![1]!);
+  const res = await call("POST", "/api/v1/invitations/accept", { cookie, body: { token } });
+  if (res.status !== 200) throw new Error(`accept: ${res.status}`);
+  const { members } = await asOwner("GET", "/api/v1/members");
+  return members.find((m: { email: string }) => m.email === email).id;
+}
+
+async function newInvitation(): Promise<string> {
+  const { invitation } = await asOwner("POST", "/api/v1/invitations", { email: `invitee${++seq}@example.net`, role: "editor" });
+  return invitation.id;
+}
+
+type Op = { method: string; path: () => Promise<string> | string; body?: () => unknown };
+
+const OPS: Record<string, Op> = {
+  "list projects": { method: "GET", path: () => "/api/v1/projects" },
+  "create project": { method: "POST", path: () => "/api/v1/projects", body: () => ({ name: `Created ${++seq}` }) },
+  "read project": { method: "GET", path: async () => `/api/v1/projects/${await newProject()}` },
+  "rename project": { method: "PATCH", path: async () => `/api/v1/projects/${await newProject()}`, body: () => ({ name: `Renamed ${++seq}` }) },
+  "delete project": { method: "DELETE", path: async () => `/api/v1/projects/${await newProject()}` },
+  "read studio": { method: "GET", path: () => "/api/v1/studio" },
+  "rename studio": { method: "PATCH", path: () => "/api/v1/studio", body: () => ({ name: "Harbour Lane Music" }) },
+  "switch to studio": { method: "PUT", path: () => "/api/v1/studio/active", body: () => ({ studioId }) },
+  "list members": { method: "GET", path: () => "/api/v1/members" },
+  "change member role": { method: "PATCH", path: async () => `/api/v1/members/${await newMember()}`, body: () => ({ role: "editor" }) },
+  "remove member": { method: "DELETE", path: async () => `/api/v1/members/${await newMember()}` },
+  "list invitations": { method: "GET", path: () => "/api/v1/invitations" },
+  "invite": { method: "POST", path: () => "/api/v1/invitations", body: () => ({ email: `new${++seq}@example.net`, role: "listener" }) },
+  "revoke invitation": { method: "DELETE", path: async () => `/api/v1/invitations/${await newInvitation()}` },
+};
+
+// Outsiders act in a studio of their own: list-type calls answer for that studio (and must not
+// show this studio's data); anything addressed by id in this studio is 404, as if it did not exist.
+const MATRIX: Record<keyof typeof OPS, Record<Principal, number>> = {
+  "list projects":      { signedOut: 401, outsider: 200, listener: 200, editor: 200, owner: 200 },
+  "create project":     { signedOut: 401, outsider: 201, listener: 403, editor: 201, owner: 201 },
+  "read project":       { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "rename project":     { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
+  "delete project":     { signedOut: 401, outsider: 404, listener: 403, editor: 204, owner: 204 },
+  "read studio":        { signedOut: 401, outsider: 200, listener: 200, editor: 200, owner: 200 },
+  "rename studio":      { signedOut: 401, outsider: 200, listener: 403, editor: 403, owner: 200 },
+  "switch to studio":   { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "list members":       { signedOut: 401, outsider: 200, listener: 200, editor: 200, owner: 200 },
+  "change member role": { signedOut: 401, outsider: 404, listener: 403, editor: 403, owner: 200 },
+  "remove member":      { signedOut: 401, outsider: 404, listener: 403, editor: 403, owner: 204 },
+  "list invitations":   { signedOut: 401, outsider: 200, listener: 403, editor: 403, owner: 200 },
+  "invite":             { signedOut: 401, outsider: 201, listener: 403, editor: 403, owner: 201 },
+  "revoke invitation":  { signedOut: 401, outsider: 404, listener: 403, editor: 403, owner: 204 },
+};
+
+beforeAll(async () => {
+  app = await startTestApp();
+  cookies.owner = await signUpVerified("owner@matrix.test", "Rosa Quint");
+  const studio = await (await call("GET", "/api/v1/studio", { cookie: cookies.owner })).json();
+  studioId = studio.studio.id;
+  for (const role of ["listener", "editor"] as const) {
+    const email = `${role}@matrix.test`;
+    cookies[role] = await signUpVerified(email);
+    await asOwner("POST", "/api/v1/invitations", { email, role });
+    const { readMailbox } = await import("@/lib/mail/mailbox");
+    const [mail] = (await readMailbox({ to: email })).filter((m) => m.subject.startsWith("Invitation"));
+    const token = decodeURIComponent(mail!.text.match(/invitations\/(\S+)/)![1]!);
+    const accept = await call("POST", "/api/v1/invitations/accept", { cookie: cookies[role], body: { token } });
+    expect(accept.status).toBe(200);
+    // act in the invited studio, not the personal one
+    const cookie = accept.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+    cookies[role] = `${cookies[role]}; ${cookie}`;
+  }
+  cookies.outsider = await signUpVerified("outsider@elsewhere.test", "Theo Outsider");
+}, 120_000);
+afterAll(async () => app.close());
+
+describe("access-control matrix", () => {
+  it("has a cell for every operation × caller", () => {
+    expect(Object.keys(MATRIX).sort()).toEqual(Object.keys(OPS).sort());
+    for (const row of Object.values(MATRIX)) expect(Object.keys(row).sort()).toEqual([...PRINCIPALS].sort());
+  });
+
+  for (const [name, op] of Object.entries(OPS)) {
+    for (const who of PRINCIPALS) {
+      const expected = MATRIX[name as keyof typeof OPS][who];
+      it(`${name} as ${who} → ${expected}`, async () => {
+        const path = await op.path();
+        const res = await call(op.method, path, { cookie: cookies[who], body: op.body?.() });
+        const text = await res.text();
+        expect(res.status, text).toBe(expected);
+        if (expected >= 400) {
+          const body = JSON.parse(text);
+          expect(Object.keys(body)).toEqual(["error"]);
+          expect(typeof body.error.code).toBe("string");
+          expect(body.error.message).not.toMatch(/sqlite|select |stack|at .*\.ts/i);
+        }
+        if (who === "outsider" && expected < 300 && text) {
+          // the outsider's answer is about their own studio, never this one
+          expect(text).not.toContain(studioId);
+          expect(text).not.toContain("Matrix project");
+          expect(text).not.toContain("owner@matrix.test");
+        }
+      });
+    }
+  }
+});

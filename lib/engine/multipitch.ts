@@ -1,0 +1,337 @@
+/**
+ * Concurrent pitches of one frame from its spectral peaks: harmonic-amplitude summation with
+ * iterative estimation and cancellation (A. Klapuri, "Multiple fundamental frequency estimation
+ * by summing harmonic amplitudes", ISMIR 2006), cancelling each detected sound with the
+ * spectral-smoothness estimate of its partials (A. Klapuri, "Multiple fundamental frequency
+ * estimation based on harmonicity and spectral smoothness", IEEE TSAP 11(6), 2003).
+ *
+ * Salience of a candidate fundamental f0 (one candidate per equal-tempered semitone at
+ * A4 = 440 Hz, each searched ±50 cents so mistuned voices are found):
+ *   s(f0) = Σ_{h=1}^{H} g(f0, h) · r_h^γ,   g(f0, h) = (f0 + α) / (h·f0 + β)
+ * with r_h the largest residual peak amplitude within the window of harmonic h,
+ * α = 52 Hz, β = 320 Hz (Klapuri 2006, 93 ms frames), γ = amplitude compression.
+ * The best candidate is refined (anchor partial, then partials within a tolerance that widens
+ * with h for string inharmonicity, f_h = h·f0·√(1 + B h²)), its partials are cancelled
+ * from the residual (amplitude min(a_h, mean of a_{h−1}, a_h, a_{h+1})), and the search
+ * repeats while the salience stays within `sensitivityDb` of the first voice.
+ */
+export interface MultiPitchConfig {
+  lowMidi: number;
+  highMidi: number;
+  voiceLimit: number;
+  sensitivityDb: number;
+  /** Highest partial frequency considered (Hz). */
+  maxFreqHz: number;
+  maxHarmonics?: number;
+  gamma?: number;
+  alphaHz?: number;
+  betaHz?: number;
+  /** Cancellation: a partial keeps what exceeds κ × its neighbours' mean (spectral smoothness). */
+  kappa?: number;
+  /** Salience factor for a candidate supported by one peak only. */
+  lonePenalty?: number;
+  /** Octave/twelfth check: the upper voice stays when its partials exceed κ × the lower voice's neighbours. */
+  octaveKappa?: number;
+}
+
+const MIDI_TABLE = 160;
+/** Partials followed (and cancelled) per detected sound. */
+const HCANCEL = 40;
+
+export class MultiPitchEstimator {
+  readonly cfg: Required<MultiPitchConfig>;
+  private readonly nCand: number;
+  private readonly H: number;
+  private readonly centre: Float32Array; // [cand*H + h-1] fractional MIDI of harmonic h
+  private readonly weight: Float32Array; // g(f0, h)
+  private readonly f0Nominal: Float32Array;
+  private readonly sal: Float32Array;
+  private readonly peakMidi: Float32Array;
+  private readonly resid: Float32Array;
+  private readonly residC: Float32Array; // resid^γ
+  private readonly first: Int32Array;
+  private readonly matched: Int32Array;
+  private nMatched = 0;
+  private readonly matchedAmp: Float32Array;
+  private readonly done: Uint8Array;
+
+  constructor(cfg: MultiPitchConfig, maxPeaks: number) {
+    this.cfg = { maxHarmonics: 10, gamma: 0.5, alphaHz: 52, betaHz: 320, kappa: 2, lonePenalty: 0.3, octaveKappa: 2, ...cfg };
+    this.nCand = this.cfg.highMidi - this.cfg.lowMidi + 1;
+    this.H = this.cfg.maxHarmonics;
+    this.centre = new Float32Array(this.nCand * this.H);
+    this.weight = new Float32Array(this.nCand * this.H);
+    this.f0Nominal = new Float32Array(this.nCand);
+    for (let c = 0; c < this.nCand; c++) {
+      const m = this.cfg.lowMidi + c;
+      const f0 = 440 * Math.pow(2, (m - 69) / 12);
+      this.f0Nominal[c] = f0;
+      for (let h = 1; h <= this.H; h++) {
+        const i = c * this.H + h - 1;
+        this.centre[i] = m + 12 * Math.log2(h);
+        this.weight[i] = h * f0 > this.cfg.maxFreqHz ? 0 : (f0 + this.cfg.alphaHz) / (h * f0 + this.cfg.betaHz);
+      }
+    }
+    this.sal = new Float32Array(this.nCand);
+    this.peakMidi = new Float32Array(maxPeaks);
+    this.resid = new Float32Array(maxPeaks);
+    this.residC = new Float32Array(maxPeaks);
+    this.first = new Int32Array(MIDI_TABLE + 2);
+    this.matched = new Int32Array(HCANCEL);
+    this.matchedAmp = new Float32Array(HCANCEL);
+    this.done = new Uint8Array(this.nCand);
+  }
+
+  /** Largest residual (compressed) in the ±0.5-semitone window around fractional MIDI c; returns peak index or −1. */
+  private bestIn(c: number, halfWidth: number, n: number): number {
+    const lo = c - halfWidth;
+    const hi = c + halfWidth;
+    const s = Math.floor(lo);
+    if (s < 0 || s >= MIDI_TABLE) return -1;
+    let best = -1;
+    let bestA = 0;
+    const pm = this.peakMidi;
+    const r = this.resid;
+    for (let i = this.first[s]; i < n; i++) {
+      const m = pm[i];
+      if (m > hi) break;
+      if (m >= lo && r[i] > bestA) {
+        bestA = r[i];
+        best = i;
+      }
+    }
+    return best;
+  }
+
+  /**
+   * Estimate the pitches of one frame. Peaks must be sorted by frequency.
+   * Writes up to voiceLimit detections at outOffset: fundamental (Hz, from the fundamental or
+   * the lowest strong partial), level (linear amplitude, root-sum-square of the voice's
+   * partials) and salience. Returns the number of detections.
+   */
+  estimate(
+    freqHz: Float32Array,
+    amp: Float32Array,
+    n: number,
+    outF0Hz: Float32Array,
+    outLevel: Float32Array,
+    outSalience: Float32Array,
+    outOffset: number,
+  ): number {
+    if (n === 0) return 0;
+    const { voiceLimit, sensitivityDb, gamma } = this.cfg;
+    const pm = this.peakMidi;
+    const r = this.resid;
+    const rc = this.residC;
+    for (let i = 0; i < n; i++) {
+      pm[i] = 69 + 12 * Math.log2(freqHz[i] / 440);
+      r[i] = amp[i];
+      this.residC[i] = Math.pow(amp[i], gamma);
+    }
+    // first[s] = index of the first peak with MIDI ≥ s
+    let j = 0;
+    for (let s = 0; s <= MIDI_TABLE + 1; s++) {
+      while (j < n && pm[j] < s) j++;
+      this.first[s] = j;
+    }
+    const H = this.H;
+    const nC = this.nCand;
+    this.done.fill(0);
+    let firstSal = 0;
+    let count = 0;
+    const minRatio = Math.pow(10, (-sensitivityDb * gamma) / 20);
+    while (count < voiceLimit) {
+      let bestC = -1;
+      let bestS = 0;
+      for (let c = 0; c < nC; c++) {
+        if (this.done[c]) continue;
+        let s = 0;
+        let parts = 0;
+        const base = c * H;
+        for (let h = 0; h < H; h++) {
+          const w = this.weight[base + h];
+          if (w === 0) break;
+          const k = this.bestIn(this.centre[base + h], 0.5, n);
+          if (k >= 0) {
+            s += w * rc[k];
+            parts++;
+          }
+        }
+        // a lone peak is weak evidence for a harmonic sound wherever its 2nd partial could show
+        if (parts < 2 && this.weight[base + 1] > 0) s *= this.cfg.lonePenalty;
+        // a fundamental below a detected voice, at 1/2, 1/3 or 1/4 of it, must show its own
+        // fundamental, else it is only that voice's partials seen again
+        if (count > 0 && this.isSubharmonic(c, count, outF0Hz, outOffset) && !(this.bestIn(this.centre[base], 0.5, n) >= 0)) s = 0;
+        this.sal[c] = s;
+        if (s > bestS) {
+          bestS = s;
+          bestC = c;
+        }
+      }
+      if (bestC < 0 || bestS <= 0) break;
+      if (count === 0) firstSal = bestS;
+      else if (bestS < firstSal * minRatio) break;
+      this.done[bestC] = 1;
+      const f0 = this.refine(bestC, n, freqHz, amp);
+      if (f0 <= 0) continue;
+      // level and cancellation
+      const HM = this.nMatched;
+      let e = 0;
+      const ma = this.matchedAmp;
+      for (let h = 0; h < HM; h++) {
+        const k = this.matched[h];
+        ma[h] = k >= 0 ? r[k] : 0;
+        if (h < H) e += ma[h] * ma[h];
+      }
+      const kappa = this.cfg.kappa;
+      for (let h = 0; h < HM; h++) {
+        const k = this.matched[h];
+        if (k < 0) continue;
+        // spectral smoothness: a partial far above its neighbours' envelope keeps the excess,
+        // which is where a second sound (an octave, a twelfth) hides
+        let env = 0;
+        let cnt = 0;
+        if (h > 0 && this.matched[h - 1] >= 0) {
+          env += ma[h - 1];
+          cnt++;
+        }
+        if (h + 1 < HM && this.matched[h + 1] >= 0) {
+          env += ma[h + 1];
+          cnt++;
+        }
+        const est = cnt === 0 || h === 0 ? ma[h] : Math.min(ma[h], kappa * Math.max(env / cnt, 0.5 * ma[h]));
+        r[k] = Math.max(0, r[k] - est);
+        rc[k] = Math.pow(r[k], gamma);
+      }
+      outF0Hz[outOffset + count] = f0;
+      outLevel[outOffset + count] = Math.sqrt(e);
+      outSalience[outOffset + count] = bestS;
+      count++;
+    }
+    return this.dropOctaveShadows(freqHz, amp, n, outF0Hz, outLevel, outSalience, outOffset, count);
+  }
+
+  /**
+   * Spectral-smoothness check of octave and twelfth pairs (Klapuri 2003): when a detected
+   * voice sits at 2× or 3× another detected voice, its partials are that lower voice's
+   * partials k·j. Unless those partials stand clearly above the lower voice's neighbouring
+   * partials (k·j ± 1), the upper voice adds nothing and is dropped. Returns the new count.
+   */
+  private dropOctaveShadows(
+    freqHz: Float32Array,
+    amp: Float32Array,
+    n: number,
+    f0s: Float32Array,
+    lev: Float32Array,
+    sal: Float32Array,
+    off: number,
+    count: number,
+  ): number {
+    if (count < 2) return count;
+    const kappa = this.cfg.octaveKappa;
+    let keep = count;
+    for (let i = 0; i < keep; i++) {
+      const hiM = 69 + 12 * Math.log2(f0s[off + i] / 440);
+      let drop = false;
+      for (let j = 0; j < keep && !drop; j++) {
+        if (j === i) continue;
+        const lo = f0s[off + j];
+        const d = hiM - (69 + 12 * Math.log2(lo / 440));
+        const k = Math.abs(d - 12) < 0.4 ? 2 : Math.abs(d - 19.02) < 0.4 ? 3 : 0;
+        if (!k) continue;
+        let shared = 0;
+        let neigh = 0;
+        for (let q = 1; q * k + 1 <= 16 && (q * k + 1) * lo <= this.cfg.maxFreqHz; q++) {
+          shared += this.ampAt(lo * q * k, n, freqHz, amp);
+          neigh += 0.5 * (this.ampAt(lo * (q * k - 1), n, freqHz, amp) + this.ampAt(lo * (q * k + 1), n, freqHz, amp));
+        }
+        if (shared <= kappa * neigh) drop = true;
+      }
+      if (drop) {
+        for (let q = i; q < keep - 1; q++) {
+          f0s[off + q] = f0s[off + q + 1];
+          lev[off + q] = lev[off + q + 1];
+          sal[off + q] = sal[off + q + 1];
+        }
+        keep--;
+        i--;
+      }
+    }
+    return keep;
+  }
+
+  /** Largest original peak amplitude within ±30 cents of freqHz (0 if none). */
+  private ampAt(fHz: number, n: number, freqHz: Float32Array, amp: Float32Array): number {
+    const c = 69 + 12 * Math.log2(fHz / 440);
+    const lo = c - 0.3;
+    const hi = c + 0.3;
+    const s = Math.floor(lo);
+    if (s < 0 || s >= MIDI_TABLE) return 0;
+    let best = 0;
+    for (let i = this.first[s]; i < n; i++) {
+      const m = this.peakMidi[i];
+      if (m > hi) break;
+      if (m >= lo && amp[i] > best) best = amp[i];
+    }
+    return best;
+  }
+
+  private isSubharmonic(c: number, count: number, f0s: Float32Array, off: number): boolean {
+    const m = this.cfg.lowMidi + c;
+    for (let i = 0; i < count; i++) {
+      const d = 69 + 12 * Math.log2(f0s[off + i] / 440) - m;
+      if (Math.abs(d - 12) < 0.5 || Math.abs(d - 19.02) < 0.5 || Math.abs(d - 24) < 0.5) return true;
+    }
+    return false;
+  }
+
+  /** Fill `matched` for candidate c around its refined fundamental; return that fundamental (Hz) or 0. */
+  private refine(c: number, n: number, freqHz: Float32Array, amp: Float32Array): number {
+    const H = this.H;
+    const base = c * H;
+    const r = this.resid;
+    // anchor: the strongest weighted partial among h = 1 … 4
+    let anchorF0 = 0;
+    let anchorV = 0;
+    for (let h = 0; h < Math.min(4, H); h++) {
+      const w = this.weight[base + h];
+      if (w === 0) break;
+      const k = this.bestIn(this.centre[base + h], 0.5, n);
+      if (k >= 0 && w * r[k] > anchorV) {
+        anchorV = w * r[k];
+        anchorF0 = freqHz[k] / (h + 1);
+      }
+    }
+    this.matched.fill(-1);
+    this.nMatched = 0;
+    if (anchorF0 <= 0) return 0;
+    const maxF = this.cfg.maxFreqHz;
+    let amax = 0;
+    // follow the series upward; the ratio of each found partial to h·f0 predicts the next,
+    // so stretched (inharmonic) partials, f_h = h·f0·√(1 + B h²), stay in the window
+    let stretch = 1;
+    let hTop = 0;
+    for (let h = 1; h <= HCANCEL && h * anchorF0 <= maxF; h++) {
+      const pred = h * anchorF0 * stretch;
+      const tolSemis = Math.min(0.5, (20 + 2 * h) / 100);
+      const k = this.bestIn(69 + 12 * Math.log2(pred / 440), tolSemis, n);
+      this.matched[h - 1] = k;
+      hTop = h;
+      if (k >= 0) {
+        if (h <= 4 && amp[k] > amax) amax = amp[k];
+        const s = freqHz[k] / (h * anchorF0);
+        if (h >= 2) stretch = Math.max(1, s);
+      }
+    }
+    this.nMatched = hTop;
+    // tuning rule: the fundamental unless it is > 20 dB below the strongest of h = 1 … 4,
+    // else the lowest partial within 6 dB of that strongest, divided by its number
+    const k1 = this.matched[0];
+    if (k1 >= 0 && amp[k1] >= 0.1 * amax) return freqHz[k1];
+    for (let h = 1; h < Math.min(4, H); h++) {
+      const k = this.matched[h];
+      if (k >= 0 && amp[k] >= 0.5 * amax) return freqHz[k] / (h + 1);
+    }
+    return anchorF0;
+  }
+}

@@ -1,0 +1,220 @@
+/**
+ * Note tracking: frame detections → pitch tracks (continuity in cents, a gap tolerance as
+ * hysteresis) → notes, split at re-articulations (an onset of the detection function where
+ * the track's own level rises), with a shortest note, onsets snapped to detected onsets and
+ * offsets corrected for the frame length of the note's register.
+ */
+export interface FrameDetections {
+  /** Frames and slots per frame. */
+  frames: number;
+  slots: number;
+  count: Uint8Array;
+  f0Hz: Float32Array;
+  level: Float32Array;
+}
+
+export interface TrackingConfig {
+  hopSec: number;
+  shortestNoteSec: number;
+  /** Frame length (s) of the register a fundamental falls in. */
+  frameLengthSecFor: (f0Hz: number) => number;
+  /** A track continues to a detection within this many cents. */
+  continuityCents?: number;
+  /** Frames a track survives without a detection. */
+  maxGapFrames?: number;
+  /** Level rise (dB) at an onset that splits a track (re-articulation). */
+  riseDb?: number;
+  /** Tracks whose peak level is this many dB under the take's loudest are dropped. */
+  rangeDb?: number;
+  /** A harmonic or sub-harmonic of a louder concurrent note this many dB weaker is dropped. */
+  shadowDb?: number;
+}
+
+/** One tracked note: frame span and per-frame fundamental and level. */
+export interface TrackedNote {
+  onsetSec: number;
+  offsetSec: number;
+  /** Frame indices, fundamentals (Hz) and levels (linear) of the note's frames. */
+  frames: Int32Array;
+  f0Hz: Float32Array;
+  level: Float32Array;
+}
+
+interface Track {
+  f0: number;
+  t: number[];
+  f: number[];
+  l: number[];
+  miss: number;
+  matched: boolean;
+}
+
+export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames: Int32Array, cfg: TrackingConfig): TrackedNote[] {
+  const cont = cfg.continuityCents ?? 60;
+  const maxGap = cfg.maxGapFrames ?? 6;
+  const riseDb = cfg.riseDb ?? 6;
+  const rangeDb = cfg.rangeDb ?? 50;
+  const active: Track[] = [];
+  const done: Track[] = [];
+  const order: number[] = [];
+  for (let t = 0; t < det.frames; t++) {
+    const n = det.count[t];
+    const base = t * det.slots;
+    order.length = 0;
+    for (let i = 0; i < n; i++) order.push(i);
+    order.sort((a, b) => det.level[base + b] - det.level[base + a]);
+    for (const tr of active) tr.matched = false;
+    for (const i of order) {
+      const f = det.f0Hz[base + i];
+      let best: Track | null = null;
+      let bestD = cont;
+      for (const tr of active) {
+        if (tr.matched) continue;
+        const d = Math.abs(1200 * Math.log2(f / tr.f0));
+        if (d < bestD) {
+          bestD = d;
+          best = tr;
+        }
+      }
+      if (!best) {
+        best = { f0: f, t: [], f: [], l: [], miss: 0, matched: false };
+        active.push(best);
+      }
+      best.matched = true;
+      best.miss = 0;
+      best.f0 = f;
+      best.t.push(t);
+      best.f.push(f);
+      best.l.push(det.level[base + i]);
+    }
+    for (let k = active.length - 1; k >= 0; k--) {
+      const tr = active[k];
+      if (tr.matched) continue;
+      if (++tr.miss > maxGap) {
+        done.push(tr);
+        active.splice(k, 1);
+      }
+    }
+  }
+  done.push(...active);
+  let maxLevel = 0;
+  for (const tr of done) for (const l of tr.l) if (l > maxLevel) maxLevel = l;
+  const minLevel = maxLevel * Math.pow(10, -rangeDb / 20);
+  const out: TrackedNote[] = [];
+  const hop = cfg.hopSec;
+  for (const tr of done) {
+    let peak = 0;
+    for (const l of tr.l) if (l > peak) peak = l;
+    if (peak < minLevel || tr.t.length < 2) continue;
+    for (const seg of splitTrack(tr, onsetFrames, riseDb)) {
+      const t0 = tr.t[seg[0]];
+      const t1 = tr.t[seg[1] - 1];
+      const fMed = median(tr.f.slice(seg[0], seg[1]));
+      const frameSec = cfg.frameLengthSecFor(fMed);
+      // onset: the strongest detected onset from just before the first frame to where the
+      // note's own frames stop reaching back before its attack
+      const look = Math.ceil((0.5 * frameSec) / hop);
+      let on = -1;
+      let onV = -1;
+      for (const o of onsetFrames) {
+        if (o < t0 - 2) continue;
+        if (o > t0 + look) break;
+        if (odf[o] > onV) {
+          onV = odf[o];
+          on = o;
+        }
+      }
+      const onsetSec = on >= 0 ? on * hop : t0 * hop + 0.25 * frameSec;
+      let offsetSec = t1 * hop - 0.25 * frameSec + hop;
+      if (offsetSec < onsetSec + cfg.shortestNoteSec) offsetSec = onsetSec + cfg.shortestNoteSec;
+      if ((t1 - t0 + 1) * hop < cfg.shortestNoteSec) continue;
+      out.push({
+        onsetSec,
+        offsetSec,
+        frames: Int32Array.from(tr.t.slice(seg[0], seg[1])),
+        f0Hz: Float32Array.from(tr.f.slice(seg[0], seg[1])),
+        level: Float32Array.from(tr.l.slice(seg[0], seg[1])),
+      });
+    }
+  }
+  out.sort((a, b) => a.onsetSec - b.onsetSec || a.f0Hz[0] - b.f0Hz[0]);
+  return pruneShadows(out, cfg.shadowDb ?? 6);
+}
+
+/** Interval in semitones of harmonic h above a fundamental: 12·log2(h). */
+const HARMONIC_SEMIS = [2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12].map((h) => 12 * Math.log2(h));
+
+/**
+ * Drop "shadow" notes: a note whose pitch is a harmonic (2nd … 12th partial) or a
+ * sub-harmonic (½, ⅓, ¼) of a louder note sounding over most of its length, and which is
+ * more than `shadowDb` weaker than it. Such notes are that louder note's partials seen again;
+ * a real doubling at a comparable level is kept.
+ */
+function pruneShadows(notes: TrackedNote[], shadowDb: number): TrackedNote[] {
+  const info = notes.map((n) => {
+    let peak = 0;
+    let sum = 0;
+    for (const l of n.level) {
+      if (l > peak) peak = l;
+      sum += l;
+    }
+    return { midi: 69 + 12 * Math.log2(median(n.f0Hz) / 440), levelDb: 20 * Math.log10(sum / Math.max(1, n.level.length) + 1e-12) };
+  });
+  const keep = notes.map(() => true);
+  const ratio = shadowDb;
+  for (let i = 0; i < notes.length; i++) {
+    const a = notes[i];
+    const len = a.offsetSec - a.onsetSec;
+    for (let j = 0; j < notes.length; j++) {
+      if (i === j) continue;
+      const b = notes[j];
+      if (b.onsetSec > a.offsetSec) break;
+      const ov = Math.min(a.offsetSec, b.offsetSec) - Math.max(a.onsetSec, b.onsetSec);
+      if (ov < 0.6 * len) continue;
+      if (info[i].levelDb > info[j].levelDb - ratio) continue;
+      const d = info[i].midi - info[j].midi;
+      const near = (x: number) => Math.abs(Math.abs(d) - x) < 0.4;
+      if ((d > 0 && HARMONIC_SEMIS.some(near)) || (d < 0 && info[i].levelDb < info[j].levelDb - 2.5 * ratio && (near(12) || near(19.02) || near(24)))) {
+        keep[i] = false;
+        break;
+      }
+    }
+  }
+  return notes.filter((_, i) => keep[i]);
+}
+
+/** Index ranges [start, end) of a track split at onsets where its level rises by riseDb. */
+function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number): Array<[number, number]> {
+  const segs: Array<[number, number]> = [];
+  const n = tr.t.length;
+  const db = tr.l.map((l) => 20 * Math.log10(l + 1e-12));
+  let start = 0;
+  let oi = 0;
+  const tFirst = tr.t[0];
+  const tLast = tr.t[n - 1];
+  while (oi < onsetFrames.length && onsetFrames[oi] <= tFirst + 3) oi++;
+  let idx = 0;
+  for (; oi < onsetFrames.length; oi++) {
+    const o = onsetFrames[oi];
+    if (o >= tLast - 2) break;
+    while (idx < n && tr.t[idx] < o) idx++;
+    if (idx - start < 8 || n - idx < 6) continue;
+    let before = Infinity;
+    for (let j = Math.max(start, idx - 5); j < idx; j++) before = Math.min(before, db[j]);
+    let after = -Infinity;
+    for (let j = idx; j < Math.min(n, idx + 4); j++) after = Math.max(after, db[j]);
+    if (after - before >= riseDb) {
+      segs.push([start, idx]);
+      start = idx;
+    }
+  }
+  segs.push([start, n]);
+  return segs;
+}
+
+export function median(xs: ArrayLike<number>): number {
+  const a = Array.from(xs).sort((p, q) => p - q);
+  const n = a.length;
+  if (n === 0) return NaN;
+  return n % 2 ? a[(n - 1) >> 1] : 0.5 * (a[n / 2 - 1] + a[n / 2]);
+}

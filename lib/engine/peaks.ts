@@ -1,0 +1,83 @@
+/**
+ * Spectral peak picking with sub-bin frequency and taper-corrected amplitude.
+ *
+ * A peak is a bin k with P(k) > P(k±1) and P(k) ≥ P(k±2) (power spectrum), above an
+ * adaptive noise floor (floorFactor × the mean power over ±floorHalfWidth bins) and within
+ * `rangeDb` of the loudest bin in the range.
+ *
+ * Frequency and level by parabolic interpolation of the log power at k−1, k, k+1
+ * (Smith & Serra 1987; bias study: Abe & Smith 2004):
+ *   δ = ½ (a − c) / (a − 2b + c),  f = (k + δ) · fs / M,  ln P̂ = b − ¼ (a − c) δ.
+ * Amplitude of the sinusoid, corrected for the taper's gain: A = 2 √P̂ / Σw.
+ */
+export interface PeakParams {
+  /** First and last bin searched (inclusive / exclusive). */
+  binLo: number;
+  binHi: number;
+  /** Hz per bin. */
+  binHz: number;
+  /** Σ w of the taper (amplitude correction). */
+  taperSum: number;
+  /** Peaks weaker than this many dB below the loudest bin in range are dropped. */
+  rangeDb: number;
+  /** Absolute floor on power (linear, same scale as P). */
+  minPower: number;
+  /** Noise-floor window half-width (bins) and factor. */
+  floorHalfWidth: number;
+  floorFactor: number;
+}
+
+/** Scratch for the running sums of the noise floor; reuse one per band. */
+export class PeakScratch {
+  readonly prefix: Float64Array;
+  constructor(bins: number) {
+    this.prefix = new Float64Array(bins + 1);
+  }
+}
+
+/**
+ * Append the peaks of `power` to outFreqHz / outAmp starting at index `offset`; returns the
+ * new end index (at most outFreqHz.length). Peaks come out in increasing frequency.
+ */
+export function findPeaks(
+  power: Float32Array,
+  p: PeakParams,
+  scratch: PeakScratch,
+  outFreqHz: Float32Array,
+  outAmp: Float32Array,
+  offset: number,
+): number {
+  const lo = Math.max(2, p.binLo);
+  const hi = Math.min(power.length - 2, p.binHi);
+  if (hi <= lo) return offset;
+  let maxP = 0;
+  for (let k = lo; k < hi; k++) if (power[k] > maxP) maxP = power[k];
+  if (maxP <= p.minPower) return offset;
+  const thr = Math.max(p.minPower, maxP * Math.pow(10, -p.rangeDb / 10));
+  const W = p.floorHalfWidth;
+  const a0 = Math.max(0, lo - W);
+  const a1 = Math.min(power.length, hi + W);
+  const pre = scratch.prefix;
+  pre[a0] = 0;
+  for (let k = a0; k < a1; k++) pre[k + 1] = pre[k] + power[k];
+  let n = offset;
+  const cap = outFreqHz.length;
+  for (let k = lo; k < hi && n < cap; k++) {
+    const b = power[k];
+    if (b < thr || b <= power[k - 1] || b <= power[k + 1] || b < power[k - 2] || b < power[k + 2]) continue;
+    const l = Math.max(a0, k - W);
+    const r = Math.min(a1, k + W + 1);
+    const mean = (pre[r] - pre[l]) / (r - l);
+    if (b < p.floorFactor * mean) continue;
+    const la = Math.log(power[k - 1] + 1e-30);
+    const lb = Math.log(b + 1e-30);
+    const lc = Math.log(power[k + 1] + 1e-30);
+    const den = la - 2 * lb + lc;
+    const d = den < 0 ? (0.5 * (la - lc)) / den : 0;
+    const lp = lb - 0.25 * (la - lc) * d;
+    outFreqHz[n] = (k + d) * p.binHz;
+    outAmp[n] = (2 * Math.exp(0.5 * lp)) / p.taperSum;
+    n++;
+  }
+  return n;
+}

@@ -1,0 +1,222 @@
+import { parseSettings, type Settings, type SettingsInput } from "./settings";
+import { checkSamples } from "./decode";
+import { resample } from "./resample";
+import { SpectrumPlan } from "./stft";
+import { findPeaks, PeakScratch, type PeakParams } from "./peaks";
+import { MultiPitchEstimator } from "./multipitch";
+import { SpectralFlux, pickOnsets } from "./onsets";
+import { trackNotes, type FrameDetections } from "./notes";
+import { steadyPitchHz, estimateReferenceHz, pitchAndCents } from "./tuning";
+import { midiToHz } from "../music/pitch";
+
+/** One note of a draft. `pitch` is the nearest 12-TET MIDI note at A4 = 440 Hz, `cents` the deviation. */
+export interface Note {
+  onsetSec: number;
+  offsetSec: number;
+  pitch: number;
+  cents: number;
+  /** 1 … 127, from the note's level (SoundFont 2 default curve: −40·log10(127/v) dB). */
+  velocity: number;
+  /** Voice number (1 = the first voice), assigned so a voice never overlaps itself. */
+  voice: number;
+  /** Pitch curve: frame times and cents from `pitch` (10 ms hop by default). */
+  pitchCurve?: { timeSec: number[]; cents: number[] };
+}
+
+export interface Transcription {
+  durationSec: number;
+  /** Sample rate of the input. */
+  sampleRateHz: number;
+  /** The take's reference pitch A4 (Hz): the setting, or the estimate. */
+  referenceHz: number;
+  settings: Settings;
+  notes: Note[];
+}
+
+/** Analysis rate of the top register; the lower registers are decimated from it. */
+export const ANALYSIS_RATE_HZ = 16000;
+
+/** Register plan: sample rate, frame length setting and frequency span of each register. */
+export function registerPlan(settings: Settings) {
+  const fl = settings.frameLengthsMs;
+  return [
+    { name: "low", rateHz: 2000, frameMs: fl.low, loHz: 27, hiHz: 250 },
+    { name: "mid", rateHz: 4000, frameMs: fl.mid, loHz: 250, hiHz: 800 },
+    { name: "high", rateHz: ANALYSIS_RATE_HZ, frameMs: fl.high, loHz: 800, hiHz: 7000 },
+  ] as const;
+}
+
+const PEAKS_PER_REGISTER = 48;
+
+/**
+ * Transcribe a mono take into notes.
+ * samples: mono, full scale ±1, at sampleRateHz (explicit). Pipeline: resample (libsamplerate) →
+ * per-register tapered spectra (fft.js) → peaks → concurrent pitches → notes → tuning.
+ * onProgress receives 0 … 1.
+ */
+export async function transcribe(
+  samples: Float32Array,
+  sampleRateHz: number,
+  settingsInput: SettingsInput | Settings = {},
+  onProgress?: (fraction: number) => void,
+): Promise<Transcription> {
+  const settings = parseSettings(settingsInput);
+  checkSamples(samples, sampleRateHz);
+  const durationSec = samples.length / sampleRateHz;
+  const x16 = await resample(samples, sampleRateHz, ANALYSIS_RATE_HZ);
+  onProgress?.(0.05);
+  const plan = registerPlan(settings);
+  const signals: Float32Array[] = [];
+  for (const r of plan) signals.push(r.rateHz === ANALYSIS_RATE_HZ ? x16 : await resample(x16, ANALYSIS_RATE_HZ, r.rateHz));
+  onProgress?.(0.1);
+  const taperParams = { kaiserBeta: settings.kaiserBeta, gaussianAlpha: settings.gaussianAlpha };
+  const lowHz = midiToHz(settings.pitchRange.lowMidi) * 0.97;
+  const regs = plan.map((r, i) => {
+    const N = Math.max(8, Math.round((r.frameMs * r.rateHz) / 1000));
+    let M = 1;
+    while (M < N) M <<= 1;
+    M <<= 1; // zero-pad 2×: parabolic-interpolation bias of Hann drops ~10× (Abe & Smith 2004)
+    const spec = new SpectrumPlan(N, M, r.rateHz, settings.taper, taperParams);
+    const nativeBinHz = r.rateHz / N;
+    const peak: PeakParams = {
+      binLo: Math.floor(Math.max(r.loHz, i === 0 ? lowHz : r.loHz) / spec.binHz),
+      binHi: Math.ceil(Math.min(r.hiHz, 0.45 * r.rateHz) / spec.binHz),
+      binHz: spec.binHz,
+      taperSum: spec.taperSum,
+      rangeDb: 70,
+      minPower: Math.pow((1e-4 * spec.taperSum) / 2, 2),
+      floorHalfWidth: Math.max(4, Math.round((6 * nativeBinHz) / spec.binHz)),
+      floorFactor: 2.5,
+    };
+    return { ...r, signal: signals[i], spec, peak, scratch: new PeakScratch(spec.bins), frameSec: N / r.rateHz };
+  });
+  const hopSec = settings.hopMs / 1000;
+  const frames = Math.floor(durationSec / hopSec) + 1;
+  const V = settings.voiceLimit;
+  const det: FrameDetections = {
+    frames,
+    slots: V,
+    count: new Uint8Array(frames),
+    f0Hz: new Float32Array(frames * V),
+    level: new Float32Array(frames * V),
+  };
+  const salience = new Float32Array(frames * V);
+  const odf = new Float32Array(frames);
+  const maxPeaks = PEAKS_PER_REGISTER * regs.length;
+  const pf = new Float32Array(maxPeaks);
+  const pa = new Float32Array(maxPeaks);
+  const est = new MultiPitchEstimator(
+    {
+      lowMidi: settings.pitchRange.lowMidi,
+      highMidi: settings.pitchRange.highMidi,
+      voiceLimit: V,
+      sensitivityDb: settings.sensitivityDb,
+      maxFreqHz: 7000,
+      ...(process.env.TN_TUNE ? JSON.parse(process.env.TN_TUNE) : {}),
+    },
+    maxPeaks,
+  );
+  const high = regs[regs.length - 1];
+  const flux = new SpectralFlux(Math.floor(50 / high.spec.binHz), Math.ceil(6000 / high.spec.binHz));
+  const progressEvery = Math.max(1, Math.floor(frames / 20));
+  for (let t = 0; t < frames; t++) {
+    let n = 0;
+    for (const r of regs) {
+      const centre = Math.round(t * hopSec * r.rateHz);
+      const power = r.spec.analyse(r.signal, centre);
+      n = findPeaks(power, r.peak, r.scratch, pf, pa, n);
+      if (r === high) odf[t] = flux.next(power);
+      if (n > maxPeaks) n = maxPeaks;
+    }
+    det.count[t] = est.estimate(pf, pa, n, det.f0Hz, det.level, salience, t * V);
+    if (onProgress && t % progressEvery === 0) onProgress(0.1 + (0.8 * t) / frames);
+  }
+  if (process.env.TN_DEBUG) debugDump(det, salience, odf, hopSec, process.env.TN_DEBUG);
+  const onsetFrames = pickOnsets(odf);
+  const frameLengthSecFor = (f0: number) => (f0 < regs[0].hiHz ? regs[0].frameSec : f0 < regs[1].hiHz ? regs[1].frameSec : regs[2].frameSec);
+  const tracked = trackNotes(det, odf, onsetFrames, {
+    hopSec,
+    shortestNoteSec: settings.shortestNoteMs / 1000,
+    frameLengthSecFor,
+  });
+  onProgress?.(0.95);
+  const notes: Note[] = [];
+  const centsList: number[] = [];
+  const weights: number[] = [];
+  for (const tn of tracked) {
+    const times = Array.from(tn.frames, (f) => f * hopSec);
+    const fHz = steadyPitchHz(times, tn.f0Hz, tn.onsetSec, tn.offsetSec);
+    if (!(fHz > 0)) continue;
+    const { pitch, cents } = pitchAndCents(fHz);
+    if (pitch < settings.pitchRange.lowMidi - 1 || pitch > settings.pitchRange.highMidi + 1) continue;
+    let peak = 0;
+    for (const l of tn.level) if (l > peak) peak = l;
+    const levelDb = 20 * Math.log10(peak + 1e-12);
+    const velocity = Math.max(1, Math.min(127, Math.round(127 * Math.pow(10, levelDb / 40))));
+    const note: Note = {
+      onsetSec: round(tn.onsetSec, 3),
+      offsetSec: round(Math.min(durationSec, tn.offsetSec), 3),
+      pitch,
+      cents: round(cents, 2),
+      velocity,
+      voice: 0,
+    };
+    if (settings.pitchCurves) {
+      note.pitchCurve = {
+        timeSec: times.map((x) => round(x, 3)),
+        cents: Array.from(tn.f0Hz, (f) => round(1200 * Math.log2(f / midiToHz(pitch)), 1)),
+      };
+    }
+    notes.push(note);
+    centsList.push(cents);
+    weights.push(tn.offsetSec - tn.onsetSec);
+  }
+  assignVoices(notes);
+  const referenceHz = settings.referenceHz === "estimate" ? round(estimateReferenceHz(centsList, weights), 2) : settings.referenceHz;
+  onProgress?.(1);
+  return { durationSec, sampleRateHz, referenceHz, settings, notes };
+}
+
+/** Greedy voice assignment in onset order: the free voice whose last pitch is nearest. */
+function assignVoices(notes: Note[]): void {
+  const lastOff: number[] = [];
+  const lastPitch: number[] = [];
+  for (const n of notes) {
+    let best = -1;
+    let bestD = Infinity;
+    for (let v = 0; v < lastOff.length; v++) {
+      if (lastOff[v] > n.onsetSec + 1e-6) continue;
+      const d = Math.abs(lastPitch[v] - n.pitch);
+      if (d < bestD) {
+        bestD = d;
+        best = v;
+      }
+    }
+    if (best < 0) {
+      best = lastOff.length;
+      lastOff.push(0);
+      lastPitch.push(0);
+    }
+    lastOff[best] = n.offsetSec;
+    lastPitch[best] = n.pitch;
+    n.voice = best + 1;
+  }
+}
+
+function round(x: number, digits: number): number {
+  const k = Math.pow(10, digits);
+  return Math.round(x * k) / k;
+}
+
+function debugDump(det: FrameDetections, sal: Float32Array, odf: Float32Array, hopSec: number, range: string): void {
+  const [a, b] = range.split(",").map(Number);
+  for (let t = Math.round(a / hopSec); t <= Math.round(b / hopSec) && t < det.frames; t++) {
+    const parts: string[] = [];
+    for (let i = 0; i < det.count[t]; i++) {
+      const f = det.f0Hz[t * det.slots + i];
+      const m = 69 + 12 * Math.log2(f / 440);
+      parts.push(`${m.toFixed(2)}:${(20 * Math.log10(det.level[t * det.slots + i])).toFixed(0)}dB/${sal[t * det.slots + i].toFixed(3)}`);
+    }
+    console.error((t * hopSec).toFixed(2), odf[t].toFixed(2), parts.join("  "));
+  }
+}

@@ -5,12 +5,17 @@ import { z } from "zod";
  * Development defaults let `npm start` work on a fresh machine; in production the
  * secrets have no defaults and a missing one stops the server at start.
  */
-const isProduction = process.env.NODE_ENV === "production" && process.env.TAPERNOTE_DEMO !== "1";
+/**
+ * APP_ENV, not NODE_ENV, decides whether this is a real deployment: `npm start` on a
+ * developer machine runs Next.js's optimised build (NODE_ENV=production) but is still
+ * "development" for Tapernote — demo data, local fakes and the mailbox page are on.
+ */
+const isProduction = process.env.APP_ENV === "production";
 
 const devSecret = "tapernote-development-secret-not-for-production-0123456789";
 
 const envSchema = z.object({
-  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  APP_ENV: z.enum(["development", "test", "production"]).default("development"),
   PORT: z.coerce.number().int().min(1).max(65535).default(3000),
   APP_URL: z.url().optional(),
   DATABASE_URL: z.string().min(1).default("file:./data/tapernote.db"),

@@ -1,0 +1,54 @@
+"use client";
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useState, type FormEvent } from "react";
+import { Alert, Button, Field, Input } from "@/components/ui";
+import { authClient } from "@/lib/client/auth-client";
+import { formValues, validate, type FormErrors } from "@/lib/client/forms";
+import { resetPasswordSchema } from "@/lib/schemas/auth";
+
+export function ResetPasswordForm({ token }: { token: string | null }) {
+  const router = useRouter();
+  const [errors, setErrors] = useState<FormErrors>({});
+  const [formError, setFormError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  if (!token) {
+    return (
+      <div className="space-y-4">
+        <h1 className="text-xl font-semibold">This link does not work</h1>
+        <Alert tone="error">The reset link is invalid or has expired.</Alert>
+        <Link href="/forgot-password" className="text-sm underline underline-offset-2">Ask for a new link</Link>
+      </div>
+    );
+  }
+
+  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+    event.preventDefault();
+    const result = validate(resetPasswordSchema, formValues(event.currentTarget));
+    if (!result.ok) return setErrors(result.errors);
+    setErrors({});
+    setBusy(true);
+    const { error } = await authClient.resetPassword({ newPassword: result.data.password, token: token! });
+    setBusy(false);
+    if (error) {
+      setFormError("The reset link is invalid or has expired. Ask for a new one.");
+      return;
+    }
+    router.replace("/sign-in?notice=reset");
+  }
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Choose a new password">
+      <h1 className="text-xl font-semibold">Choose a new password</h1>
+      {formError ? <Alert tone="error">{formError}</Alert> : null}
+      <Field label="New password" htmlFor="password" error={errors.password} hint="At least 8 characters.">
+        <Input id="password" name="password" type="password" autoComplete="new-password" invalid={!!errors.password} />
+      </Field>
+      <Field label="The same again" htmlFor="confirm" error={errors.confirm}>
+        <Input id="confirm" name="confirm" type="password" autoComplete="new-password" invalid={!!errors.confirm} />
+      </Field>
+      <Button type="submit" loading={busy} className="w-full">Save the new password</Button>
+    </form>
+  );
+}

@@ -1,0 +1,152 @@
+"use client";
+import Link from "next/link";
+import { useMemo, useState } from "react";
+import {
+  Alert,
+  Button,
+  ConfirmDialog,
+  DataTable,
+  Dialog,
+  EmptyState,
+  Mono,
+  PageHeader,
+  createDataTableColumns,
+} from "@/components/ui";
+import { ProjectForm } from "./ProjectForm";
+import { useCreateProject } from "./use-create-project";
+import { useDeleteProject } from "./use-delete-project";
+import { useProjects } from "./use-projects";
+import { useUpdateProject } from "./use-update-project";
+import type { ProjectDto } from "@/lib/schemas/project";
+
+const col = createDataTableColumns<ProjectDto>();
+const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short" });
+
+export function ProjectsView({ studioName, canEdit }: { studioName: string; canEdit: boolean }) {
+  const projects = useProjects();
+  const create = useCreateProject();
+  const update = useUpdateProject();
+  const remove = useDeleteProject();
+  const [creating, setCreating] = useState(false);
+  const [renaming, setRenaming] = useState<ProjectDto | null>(null);
+  const [deleting, setDeleting] = useState<ProjectDto | null>(null);
+  const [deleteError, setDeleteError] = useState<string | null>(null);
+
+  const columns = useMemo(
+    () =>
+      col.columns([
+        col.accessor("name", {
+          header: "Project",
+          cell: (c) => (
+            <Link href={`/projects/${c.row.original.id}`} className="font-medium underline-offset-2 hover:underline">
+              {c.getValue()}
+            </Link>
+          ),
+        }),
+        col.accessor("description", { header: "Description", enableSorting: false, cell: (c) => <span className="text-ink-muted">{c.getValue()}</span> }),
+        col.accessor((p) => new Date(p.updatedAt), {
+          id: "updatedAt",
+          header: "Last changed",
+          sortFn: "datetime",
+          cell: (c) => <Mono>{dateFormat.format(c.getValue())}</Mono>,
+        }),
+        col.display({
+          id: "actions",
+          header: () => <span className="sr-only">Actions</span>,
+          cell: ({ row }) =>
+            canEdit ? (
+              <div className="flex justify-end gap-1">
+                <Button size="sm" variant="ghost" onClick={() => setRenaming(row.original)} aria-label={`Rename ${row.original.name}`}>
+                  Rename
+                </Button>
+                <Button size="sm" variant="ghost" onClick={() => { setDeleteError(null); setDeleting(row.original); }} aria-label={`Delete ${row.original.name}`}>
+                  Delete
+                </Button>
+              </div>
+            ) : null,
+        }),
+      ]),
+    [canEdit],
+  );
+
+  return (
+    <div className="space-y-6">
+      <PageHeader
+        title="Projects"
+        description={`Folders of takes in ${studioName}.`}
+        actions={canEdit ? <Button onClick={() => setCreating(true)}>New project</Button> : null}
+      />
+      {projects.isError ? (
+        <Alert tone="error" title="The projects could not be loaded" action={<Button size="sm" variant="secondary" onClick={() => projects.refetch()}>Try again</Button>}>
+          {projects.error.message}
+        </Alert>
+      ) : (
+        <DataTable
+          columns={columns}
+          data={projects.data ?? []}
+          isLoading={projects.isPending}
+          getRowId={(p) => p.id}
+          initialSorting={[{ id: "updatedAt", desc: true }]}
+          emptyState={
+            <EmptyState
+              title="No projects yet"
+              description={canEdit ? "Create a project to hold the takes of a class, an ensemble or a piece." : "The studio's editors have not created a project yet."}
+              action={canEdit ? <Button onClick={() => setCreating(true)}>New project</Button> : undefined}
+            />
+          }
+        />
+      )}
+
+      <Dialog open={creating} onClose={() => setCreating(false)} title="New project">
+        {creating ? (
+          <ProjectForm
+            submitLabel="Create project"
+            onCancel={() => setCreating(false)}
+            onSubmit={async (input) => {
+              await create.mutateAsync(input);
+              setCreating(false);
+            }}
+          />
+        ) : null}
+      </Dialog>
+
+      <Dialog open={!!renaming} onClose={() => setRenaming(null)} title="Rename project">
+        {renaming ? (
+          <ProjectForm
+            initial={renaming}
+            submitLabel="Save"
+            onCancel={() => setRenaming(null)}
+            onSubmit={async (input) => {
+              await update.mutateAsync({ id: renaming.id, ...input });
+              setRenaming(null);
+            }}
+          />
+        ) : null}
+      </Dialog>
+
+      <ConfirmDialog
+        open={!!deleting}
+        title="Delete this project?"
+        message={
+          <>
+            <strong>{deleting?.name}</strong> and everything in it will be deleted for good. This cannot be undone.
+            {deleteError ? <span className="mt-2 block text-sharp" role="alert">{deleteError}</span> : null}
+          </>
+        }
+        confirmLabel="Delete for good"
+        danger
+        busy={remove.isPending}
+        onCancel={() => setDeleting(null)}
+        onConfirm={async () => {
+          if (!deleting) return;
+          try {
+            await remove.mutateAsync(deleting.id);
+            setDeleting(null);
+          } catch (e) {
+            setDeleteError(e instanceof Error ? e.message : "Deleting failed.");
+          }
+        }}
+      />
+    </div>
+  );
+}

@@ -32,6 +32,8 @@ export interface MultiPitchConfig {
   lonePenalty?: number;
   /** Octave/twelfth check: the upper voice stays when its partials exceed κ × the lower voice's neighbours. */
   octaveKappa?: number;
+  /** Salience factor for a candidate detected in the previous frame (hysteresis). */
+  continuityBonus?: number;
 }
 
 const MIDI_TABLE = 160;
@@ -54,9 +56,12 @@ export class MultiPitchEstimator {
   private nMatched = 0;
   private readonly matchedAmp: Float32Array;
   private readonly done: Uint8Array;
+  /** Candidates detected in the previous frame (hysteresis). */
+  private readonly prev: Uint8Array;
+  private readonly cur: Uint8Array;
 
   constructor(cfg: MultiPitchConfig, maxPeaks: number) {
-    this.cfg = { maxHarmonics: 10, gamma: 0.5, alphaHz: 52, betaHz: 320, kappa: 2, lonePenalty: 0.3, octaveKappa: 2, ...cfg };
+    this.cfg = { maxHarmonics: 10, gamma: 0.5, alphaHz: 52, betaHz: 320, kappa: 2, lonePenalty: 0.3, octaveKappa: 2, continuityBonus: 1.3, ...cfg };
     this.nCand = this.cfg.highMidi - this.cfg.lowMidi + 1;
     this.H = this.cfg.maxHarmonics;
     this.centre = new Float32Array(this.nCand * this.H);
@@ -80,6 +85,8 @@ export class MultiPitchEstimator {
     this.matched = new Int32Array(HCANCEL);
     this.matchedAmp = new Float32Array(HCANCEL);
     this.done = new Uint8Array(this.nCand);
+    this.prev = new Uint8Array(this.nCand);
+    this.cur = new Uint8Array(this.nCand);
   }
 
   /** Largest residual (compressed) in the ±0.5-semitone window around fractional MIDI c; returns peak index or −1. */
@@ -118,7 +125,10 @@ export class MultiPitchEstimator {
     outSalience: Float32Array,
     outOffset: number,
   ): number {
-    if (n === 0) return 0;
+    if (n === 0) {
+      this.prev.fill(0);
+      return 0;
+    }
     const { voiceLimit, sensitivityDb, gamma } = this.cfg;
     const pm = this.peakMidi;
     const r = this.resid;
@@ -137,6 +147,7 @@ export class MultiPitchEstimator {
     const H = this.H;
     const nC = this.nCand;
     this.done.fill(0);
+    this.cur.fill(0);
     let firstSal = 0;
     let count = 0;
     const minRatio = Math.pow(10, (-sensitivityDb * gamma) / 20);
@@ -162,6 +173,7 @@ export class MultiPitchEstimator {
         // a fundamental below a detected voice, at 1/2, 1/3 or 1/4 of it, must show its own
         // fundamental, else it is only that voice's partials seen again
         if (count > 0 && this.isSubharmonic(c, count, outF0Hz, outOffset) && !(this.bestIn(this.centre[base], 0.5, n) >= 0)) s = 0;
+        if (this.prev[c]) s *= this.cfg.continuityBonus;
         this.sal[c] = s;
         if (s > bestS) {
           bestS = s;
@@ -172,6 +184,7 @@ export class MultiPitchEstimator {
       if (count === 0) firstSal = bestS;
       else if (bestS < firstSal * minRatio) break;
       this.done[bestC] = 1;
+      this.cur[bestC] = 1;
       const f0 = this.refine(bestC, n, freqHz, amp);
       if (f0 <= 0) continue;
       // level and cancellation
@@ -208,6 +221,7 @@ export class MultiPitchEstimator {
       outSalience[outOffset + count] = bestS;
       count++;
     }
+    this.prev.set(this.cur);
     return this.dropOctaveShadows(freqHz, amp, n, outF0Hz, outLevel, outSalience, outOffset, count);
   }
 

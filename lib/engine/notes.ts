@@ -28,10 +28,14 @@ export interface TrackingConfig {
   rangeDb?: number;
   /** A harmonic or sub-harmonic of a louder concurrent note this many dB weaker is dropped. */
   shadowDb?: number;
+  /** How far before a track's first frame its onset is searched (s). */
+  onsetBackSec?: number;
 }
 
 /** One tracked note: frame span and per-frame fundamental and level. */
 export interface TrackedNote {
+  /** True when the onset was snapped to a detected onset. */
+  hasOnset: boolean;
   onsetSec: number;
   offsetSec: number;
   /** Frame indices, fundamentals (Hz) and levels (linear) of the note's frames. */
@@ -114,14 +118,22 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
       // onset: the strongest detected onset from just before the first frame to where the
       // note's own frames stop reaching back before its attack
       const look = Math.ceil((0.5 * frameSec) / hop);
-      let on = -1;
-      let onV = -1;
+      const back = Math.round((cfg.onsetBackSec ?? 0.2) / hop);
+      // the earliest strong detected onset from a little before the first frame (a voice
+      // competing at its attack is found late) to where the note's frames stop reaching back
+      let onMax = 0;
       for (const o of onsetFrames) {
-        if (o < t0 - 2) continue;
+        if (o < t0 - back) continue;
         if (o > t0 + look) break;
-        if (odf[o] > onV) {
-          onV = odf[o];
+        if (odf[o] > onMax) onMax = odf[o];
+      }
+      let on = -1;
+      for (const o of onsetFrames) {
+        if (o < t0 - back) continue;
+        if (o > t0 + look) break;
+        if (odf[o] >= 0.5 * onMax) {
           on = o;
+          break;
         }
       }
       const onsetSec = on >= 0 ? on * hop : t0 * hop + 0.25 * frameSec;
@@ -129,6 +141,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
       if (offsetSec < onsetSec + cfg.shortestNoteSec) offsetSec = onsetSec + cfg.shortestNoteSec;
       if ((t1 - t0 + 1) * hop < cfg.shortestNoteSec) continue;
       out.push({
+        hasOnset: on >= 0,
         onsetSec,
         offsetSec,
         frames: Int32Array.from(tr.t.slice(seg[0], seg[1])),
@@ -138,7 +151,51 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     }
   }
   out.sort((a, b) => a.onsetSec - b.onsetSec || a.f0Hz[0] - b.f0Hz[0]);
-  return pruneShadows(out, cfg.shadowDb ?? 6);
+  return pruneShadows(mergeFragments(out, cont), cfg.shadowDb ?? 6);
+}
+
+/**
+ * Join fragments of one held note: a note of the same pitch (within `cents`) that starts
+ * before the previous one ended (+30 ms), or without an attack of its own within 150 ms of it,
+ * continues that note. Attack-less fragments standing alone and shorter than 300 ms are dropped.
+ */
+function mergeFragments(notes: TrackedNote[], cents: number): TrackedNote[] {
+  const out: TrackedNote[] = [];
+  for (const n of notes) {
+    const f = median(n.f0Hz);
+    let joined = false;
+    for (let i = out.length - 1; i >= 0 && !joined; i--) {
+      const p = out[i];
+      if (n.onsetSec - p.offsetSec > 0.15) continue;
+      if (Math.abs(1200 * Math.log2(f / median(p.f0Hz))) > cents) continue;
+      if (n.onsetSec <= p.offsetSec + 0.03 || !n.hasOnset) {
+        out[i] = {
+          hasOnset: p.hasOnset,
+          onsetSec: p.onsetSec,
+          offsetSec: Math.max(p.offsetSec, n.offsetSec),
+          frames: concatI(p.frames, n.frames),
+          f0Hz: concatF(p.f0Hz, n.f0Hz),
+          level: concatF(p.level, n.level),
+        };
+        joined = true;
+      }
+    }
+    if (!joined) out.push(n);
+  }
+  return out.filter((n) => n.hasOnset || n.offsetSec - n.onsetSec >= 0.3).sort((a, b) => a.onsetSec - b.onsetSec);
+}
+
+function concatF(a: Float32Array, b: Float32Array): Float32Array {
+  const r = new Float32Array(a.length + b.length);
+  r.set(a);
+  r.set(b, a.length);
+  return r;
+}
+function concatI(a: Int32Array, b: Int32Array): Int32Array {
+  const r = new Int32Array(a.length + b.length);
+  r.set(a);
+  r.set(b, a.length);
+  return r;
 }
 
 /** Interval in semitones of harmonic h above a fundamental: 12·log2(h). */

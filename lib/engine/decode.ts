@@ -147,7 +147,11 @@ async function decodeFlac(bytes: Uint8Array, maxSec: number): Promise<DecodedAud
   if (chans.length === 0 || frames <= 0) throw new EngineError(res.errors?.length ? "truncated" : "empty", "the FLAC file holds no decodable audio");
   checkLength(frames, res.sampleRate || sampleRateHz, maxSec);
   const out = new Float32Array(frames);
-  const inv = 1 / chans.length;
+  // the decoder scales integers by 1/(2^(b−1) − 1); the WAV path (and common practice) uses
+  // 1/2^(b−1), so the same audio decodes to the same numbers from either format
+  const bits = res.bitDepth;
+  const rescale = bits >= 8 && bits <= 32 ? (Math.pow(2, bits - 1) - 1) / Math.pow(2, bits - 1) : 1;
+  const inv = rescale / chans.length;
   for (const ch of chans) for (let i = 0; i < frames; i++) out[i] += ch[i] * inv;
   for (let i = 0; i < frames; i++) if (!Number.isFinite(out[i])) throw new EngineError("bad_samples", "the FLAC file decodes to non-finite samples");
   const sr = res.sampleRate || sampleRateHz;

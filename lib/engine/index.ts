@@ -12,3 +12,4 @@ export { estimateReferenceHz, steadyPitchHz } from "./tuning";
 export { settingsSchema, parseSettings, type Settings, type SettingsInput } from "./settings";
 export { transcribe, registerPlan, ANALYSIS_RATE_HZ, type Note, type Transcription } from "./transcribe";
 export { notesToMidi } from "./midi";
+export { noteMetrics, type ScoredNote, type NoteMetrics, type NoteMetricOptions } from "./metrics";

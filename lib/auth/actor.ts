@@ -1,6 +1,7 @@
 import "server-only";
 import { auth } from "./auth";
 import { can, type Action, type Role } from "./permissions";
+import { resolveApiKey } from "@/db/api-keys";
 import { getMembership, listMemberships, type Membership } from "@/db/studios";
 import { AppError, forbidden, unauthorized } from "@/lib/errors";
 
@@ -17,6 +18,9 @@ export type Actor = {
   role: Role;
   memberId: string;
   memberships: Membership[];
+  /** How the caller proved who they are; an API key acts only in its own studio. */
+  via: "session" | "apiKey";
+  apiKeyId?: string;
 };
 
 function cookieValue(headers: Headers, name: string): string | undefined {
@@ -48,12 +52,31 @@ export async function actorFromHeaders(headers: Headers): Promise<Actor | null> 
   const wanted = cookieValue(headers, ACTIVE_STUDIO_COOKIE);
   const memberships = await listMemberships(user.id);
   const active = (wanted && memberships.find((m) => m.studioId === wanted)) || memberships[0];
-  if (!active) return { user, studioId: "", studioName: "", role: "listener", memberId: "", memberships };
-  return { user, studioId: active.studioId, studioName: active.studioName, role: active.role, memberId: active.memberId, memberships };
+  if (!active) return { user, studioId: "", studioName: "", role: "listener", memberId: "", memberships, via: "session" };
+  return { user, studioId: active.studioId, studioName: active.studioName, role: active.role, memberId: active.memberId, memberships, via: "session" };
 }
 
-/** The actor of an API request; 401 when signed out, 404 when the user belongs to no studio. */
+/**
+ * The actor of an API request: a studio API key (`Authorization: Bearer tn_…`) or the
+ * browser session. 401 when neither is valid, 404 when the user belongs to no studio.
+ */
 export async function requireActor(request: Request): Promise<Actor> {
+  const authorization = request.headers.get("authorization");
+  if (authorization) {
+    const match = authorization.match(/^Bearer\s+(\S+)$/i);
+    const key = match ? await resolveApiKey(match[1]!) : null;
+    if (!key) throw new AppError("unauthorized", "This API key is not valid (unknown, revoked, or its creator left the studio).");
+    return {
+      user: key.user,
+      studioId: key.studioId,
+      studioName: key.studioName,
+      role: key.role,
+      memberId: "",
+      memberships: [{ studioId: key.studioId, studioName: key.studioName, role: key.role, memberId: "" }],
+      via: "apiKey",
+      apiKeyId: key.keyId,
+    };
+  }
   const actor = await actorFromHeaders(request.headers);
   if (!actor) throw unauthorized();
   if (!actor.studioId) throw new AppError("not_found", "You are not a member of any studio yet.");

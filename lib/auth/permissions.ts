@@ -2,20 +2,20 @@
  * Who may do what in a studio. Every page, route handler and server action asks
  * this module (through `requireRole`/`can`), so the rules live in one place.
  *
- *             read  edit  export  bill  manageMembers
- *   owner      ✓     ✓      ✓      ✓         ✓
- *   editor     ✓     ✓      ✓
+ *             read  edit  export  bill  manageMembers  manageApiKeys
+ *   owner      ✓     ✓      ✓      ✓         ✓              ✓
+ *   editor     ✓     ✓      ✓                               ✓
  *   listener   ✓
  */
 export const ROLES = ["owner", "editor", "listener"] as const;
 export type Role = (typeof ROLES)[number];
 
-export const ACTIONS = ["read", "edit", "export", "bill", "manageMembers"] as const;
+export const ACTIONS = ["read", "edit", "export", "bill", "manageMembers", "manageApiKeys"] as const;
 export type Action = (typeof ACTIONS)[number];
 
 const GRANTS: Record<Role, ReadonlySet<Action>> = {
-  owner: new Set(["read", "edit", "export", "bill", "manageMembers"]),
-  editor: new Set(["read", "edit", "export"]),
+  owner: new Set(["read", "edit", "export", "bill", "manageMembers", "manageApiKeys"]),
+  editor: new Set(["read", "edit", "export", "manageApiKeys"]),
   listener: new Set(["read"]),
 };
 

@@ -4,6 +4,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { call, signUpVerified, startTestApp, type TestApp } from "../support/app";
+import { toneWav, uploadForm } from "../support/audio";
 
 const PRINCIPALS = ["signedOut", "outsider", "listener", "editor", "owner"] as const;
 type Principal = (typeof PRINCIPALS)[number];
@@ -48,6 +49,33 @@ async function newInvitation(): Promise<string> {
   return invitation.id;
 }
 
+let takeProject = "";
+const wav = toneWav({ freqsHz: [261.63], durationSec: 0.5 });
+
+async function newTake(): Promise<string> {
+  const res = await call("POST", `/api/v1/projects/${takeProject}/takes`, { cookie: cookies.owner, rawBody: uploadForm({ file: wav }) });
+  if (res.status !== 201) throw new Error(`setup upload: ${res.status} ${await res.text()}`);
+  return (await res.json()).take.id;
+}
+
+/** A take with revision 1 saved, so it has notes without waiting for an analysis. */
+async function takeWithNotes(): Promise<string> {
+  const id = await newTake();
+  await asOwner("PUT", `/api/v1/takes/${id}/notes`, { baseRevision: 0, notes: [{ onsetSec: 0, offsetSec: 0.4, pitch: 60, cents: 0, velocity: 80, voice: 1 }] });
+  return id;
+}
+
+async function newAnalysis(): Promise<string> {
+  const id = await newTake();
+  const { analyses } = await asOwner("GET", `/api/v1/takes/${id}/analyses`);
+  return analyses[0].id;
+}
+
+async function newApiKey(): Promise<string> {
+  const { apiKey } = await asOwner("POST", "/api/v1/api-keys", { name: `Key ${++seq}`, role: "listener" });
+  return apiKey.id;
+}
+
 type Op = { method: string; path: () => Promise<string> | string; body?: () => unknown };
 
 const OPS: Record<string, Op> = {
@@ -65,6 +93,24 @@ const OPS: Record<string, Op> = {
   "list invitations": { method: "GET", path: () => "/api/v1/invitations" },
   "invite": { method: "POST", path: () => "/api/v1/invitations", body: () => ({ email: `new${++seq}@example.net`, role: "listener" }) },
   "revoke invitation": { method: "DELETE", path: async () => `/api/v1/invitations/${await newInvitation()}` },
+  "list takes": { method: "GET", path: () => `/api/v1/projects/${takeProject}/takes` },
+  "upload take": { method: "POST", path: () => `/api/v1/projects/${takeProject}/takes`, body: () => uploadForm({ file: wav }) },
+  "read take": { method: "GET", path: async () => `/api/v1/takes/${await newTake()}` },
+  "play take audio": { method: "GET", path: async () => `/api/v1/takes/${await newTake()}/audio` },
+  "delete take": { method: "DELETE", path: async () => `/api/v1/takes/${await newTake()}` },
+  "list analyses": { method: "GET", path: async () => `/api/v1/takes/${await newTake()}/analyses` },
+  "re-analyse take": { method: "POST", path: async () => `/api/v1/takes/${await newTake()}/analyses`, body: () => ({ settings: { taper: "hamming" } }) },
+  "read analysis": { method: "GET", path: async () => `/api/v1/analyses/${await newAnalysis()}` },
+  "cancel analysis": { method: "POST", path: async () => `/api/v1/analyses/${await newAnalysis()}/cancel` },
+  "read notes": { method: "GET", path: async () => `/api/v1/takes/${await takeWithNotes()}/notes` },
+  "save notes": {
+    method: "PUT",
+    path: async () => `/api/v1/takes/${await takeWithNotes()}/notes`,
+    body: () => ({ baseRevision: 1, notes: [{ onsetSec: 0, offsetSec: 0.5, pitch: 61, cents: 0, velocity: 80, voice: 1 }] }),
+  },
+  "list API keys": { method: "GET", path: () => "/api/v1/api-keys" },
+  "create API key": { method: "POST", path: () => "/api/v1/api-keys", body: () => ({ name: `Script ${++seq}`, role: "listener" }) },
+  "revoke API key": { method: "DELETE", path: async () => `/api/v1/api-keys/${await newApiKey()}` },
 };
 
 // Outsiders act in a studio of their own: list-type calls answer for that studio (and must not
@@ -84,6 +130,20 @@ const MATRIX: Record<keyof typeof OPS, Record<Principal, number>> = {
   "list invitations":   { signedOut: 401, outsider: 200, listener: 403, editor: 403, owner: 200 },
   "invite":             { signedOut: 401, outsider: 201, listener: 403, editor: 403, owner: 201 },
   "revoke invitation":  { signedOut: 401, outsider: 404, listener: 403, editor: 403, owner: 204 },
+  "list takes":         { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "upload take":        { signedOut: 401, outsider: 404, listener: 403, editor: 201, owner: 201 },
+  "read take":          { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "play take audio":    { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "delete take":        { signedOut: 401, outsider: 404, listener: 403, editor: 204, owner: 204 },
+  "list analyses":      { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "re-analyse take":    { signedOut: 401, outsider: 404, listener: 403, editor: 202, owner: 202 },
+  "read analysis":      { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "cancel analysis":    { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
+  "read notes":         { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "save notes":         { signedOut: 401, outsider: 404, listener: 403, editor: 201, owner: 201 },
+  "list API keys":      { signedOut: 401, outsider: 200, listener: 403, editor: 200, owner: 200 },
+  "create API key":     { signedOut: 401, outsider: 201, listener: 403, editor: 201, owner: 201 },
+  "revoke API key":     { signedOut: 401, outsider: 404, listener: 403, editor: 204, owner: 204 },
 };
 
 beforeAll(async () => {
@@ -105,6 +165,7 @@ beforeAll(async () => {
     cookies[role] = `${cookies[role]}; ${cookie}`;
   }
   cookies.outsider = await signUpVerified("outsider@elsewhere.test", "Theo Outsider");
+  takeProject = (await asOwner("POST", "/api/v1/projects", { name: "Matrix takes" })).project.id;
 }, 120_000);
 afterAll(async () => app.close());
 
@@ -119,7 +180,8 @@ describe("access-control matrix", () => {
       const expected = MATRIX[name as keyof typeof OPS][who];
       it(`${name} as ${who} → ${expected}`, async () => {
         const path = await op.path();
-        const res = await call(op.method, path, { cookie: cookies[who], body: op.body?.() });
+        const body = op.body?.();
+        const res = await call(op.method, path, body instanceof FormData ? { cookie: cookies[who], rawBody: body } : { cookie: cookies[who], body });
         const text = await res.text();
         expect(res.status, text).toBe(expected);
         if (expected >= 400) {
@@ -132,6 +194,7 @@ describe("access-control matrix", () => {
           // the outsider's answer is about their own studio, never this one
           expect(text).not.toContain(studioId);
           expect(text).not.toContain("Matrix project");
+          expect(text).not.toContain("Matrix takes");
           expect(text).not.toContain("owner@matrix.test");
         }
       });

@@ -30,6 +30,19 @@ const routes: [RegExp, string[], () => Promise<RouteModule>][] = [
   [/^\/api\/v1\/invitations\/accept$/, [], () => import("@/app/api/v1/invitations/accept/route") as Promise<RouteModule>],
   [/^\/api\/v1\/invitations\/([^/]+)$/, ["invitationId"], () => import("@/app/api/v1/invitations/[invitationId]/route") as Promise<RouteModule>],
   [/^\/api\/v1\/me$/, [], () => import("@/app/api/v1/me/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/studios$/, [], () => import("@/app/api/v1/studios/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/projects\/([^/]+)\/takes$/, ["projectId"], () => import("@/app/api/v1/projects/[projectId]/takes/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/takes\/([^/]+)$/, ["takeId"], () => import("@/app/api/v1/takes/[takeId]/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/takes\/([^/]+)\/analyses$/, ["takeId"], () => import("@/app/api/v1/takes/[takeId]/analyses/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/takes\/([^/]+)\/notes$/, ["takeId"], () => import("@/app/api/v1/takes/[takeId]/notes/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/takes\/([^/]+)\/revisions$/, ["takeId"], () => import("@/app/api/v1/takes/[takeId]/revisions/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/takes\/([^/]+)\/audio$/, ["takeId"], () => import("@/app/api/v1/takes/[takeId]/audio/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/analyses\/([^/]+)$/, ["analysisId"], () => import("@/app/api/v1/analyses/[analysisId]/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/analyses\/([^/]+)\/cancel$/, ["analysisId"], () => import("@/app/api/v1/analyses/[analysisId]/cancel/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/api-keys$/, [], () => import("@/app/api/v1/api-keys/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/api-keys\/([^/]+)$/, ["keyId"], () => import("@/app/api/v1/api-keys/[keyId]/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/limits$/, [], () => import("@/app/api/v1/limits/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/openapi\.json$/, [], () => import("@/app/api/v1/openapi.json/route") as Promise<RouteModule>],
 ];
 
 export type TestApp = {
@@ -45,6 +58,7 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
   const smtp = await startSmtpCatcher({ port: 0, dir: mailboxDir });
   Object.assign(process.env, {
     DATABASE_URL: `file:${path.join(dir, "test.db")}`,
+    DATA_DIR: path.join(dir, "uploads"),
     MAILBOX_DIR: mailboxDir,
     SMTP_HOST: "127.0.0.1",
     SMTP_PORT: String(smtp.port),
@@ -73,7 +87,7 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
   };
 }
 
-export type CallOptions = { cookie?: string; body?: unknown; headers?: Record<string, string>; rawBody?: string };
+export type CallOptions = { cookie?: string; body?: unknown; headers?: Record<string, string>; rawBody?: string | FormData | Uint8Array };
 
 /** Calls the real route handler for a path, the way Next.js would. */
 export async function call(method: string, pathAndQuery: string, opts: CallOptions = {}): Promise<Response> {
@@ -81,13 +95,13 @@ export async function call(method: string, pathAndQuery: string, opts: CallOptio
   const headers = new Headers(opts.headers);
   headers.set("origin", BASE);
   if (opts.cookie) headers.set("cookie", opts.cookie);
-  let body: string | undefined;
+  let body: string | FormData | Uint8Array | undefined;
   if (opts.rawBody !== undefined) body = opts.rawBody;
   else if (opts.body !== undefined) {
     body = JSON.stringify(opts.body);
     if (!headers.has("content-type")) headers.set("content-type", "application/json");
   }
-  const request = new Request(url, { method, headers, body });
+  const request = new Request(url, { method, headers, body: body as BodyInit | undefined });
   for (const [pattern, names, load] of routes) {
     const m = url.pathname.match(pattern);
     if (!m) continue;

@@ -2,10 +2,10 @@ import { describe, expect, it } from "vitest";
 import { ACTIONS, ROLES, can } from "@/lib/auth/permissions";
 
 // The product's role definitions (shared/NAMES.md): owner — billing and members; editor —
-// upload, correct, export; listener — replay and read.
+// upload, correct, export (and, issue 4, create and revoke API keys); listener — replay and read.
 const EXPECTED: Record<(typeof ROLES)[number], (typeof ACTIONS)[number][]> = {
-  owner: ["read", "edit", "export", "bill", "manageMembers"],
-  editor: ["read", "edit", "export"],
+  owner: ["read", "edit", "export", "bill", "manageMembers", "manageApiKeys"],
+  editor: ["read", "edit", "export", "manageApiKeys"],
   listener: ["read"],
 };
 

@@ -1,0 +1,35 @@
+import { NextResponse } from "next/server";
+import { getTakeNotes, getTakeRow, saveRevision } from "@/db/takes";
+import { parseJson, route } from "@/lib/api/respond";
+import { requireActor, requireRole } from "@/lib/auth/actor";
+import { AppError } from "@/lib/errors";
+import { putNotesSchema } from "@/lib/schemas/notes";
+
+type Ctx = { params: Promise<{ takeId: string }> };
+
+export const GET = route(async (request, { params }: Ctx) => {
+  const actor = await requireActor(request);
+  const url = new URL(request.url);
+  const rev = url.searchParams.get("revision");
+  if (rev !== null && !/^[1-9][0-9]*$/.test(rev)) throw new AppError("bad_request", "revision must be a positive whole number.");
+  const withCurves = url.searchParams.get("curves") === "1";
+  const notes = await getTakeNotes(actor.studioId, (await params).takeId, { revision: rev ? Number(rev) : undefined });
+  requireRole(actor, "read");
+  return NextResponse.json({
+    source: notes.source,
+    ...(notes.revision !== undefined ? { revision: notes.revision } : {}),
+    referenceHz: notes.referenceHz,
+    notes: withCurves ? notes.notes : notes.notes.map(({ pitchCurve: _curve, ...n }) => n),
+  });
+});
+
+/** Saves corrected notes as the next revision; 409 when baseRevision is not the latest. */
+export const PUT = route(async (request, { params }: Ctx) => {
+  const actor = await requireActor(request);
+  const { takeId } = await params;
+  await getTakeRow(actor.studioId, takeId);
+  requireRole(actor, "edit");
+  const input = await parseJson(request, putNotesSchema);
+  const revision = await saveRevision(actor.studioId, takeId, input, actor.user.id);
+  return NextResponse.json({ revision }, { status: 201 });
+});

@@ -3,7 +3,11 @@ import { hashPassword } from "better-auth/crypto";
 import { and, eq } from "drizzle-orm";
 import type { Db } from "./client";
 import { newId } from "./ids";
-import { account, project, studio, studioMember, user } from "./schema";
+import { account, project, studio, studioMember, take, user } from "./schema";
+import { readFile } from "node:fs/promises";
+import path from "node:path";
+import { createTake } from "./takes";
+import { decodeAudio } from "@/lib/engine";
 import type { Role } from "@/lib/auth/permissions";
 
 /** The invented demo studio: listed in the README, seeded by the run command outside production. */
@@ -58,4 +62,45 @@ export async function seedDemo(database: Db): Promise<{ created: boolean }> {
     }
   }
   return { created };
+}
+
+/** The demo takes (rendered by `npm run demo:render`, committed under demo/), in the first demo project. */
+export const DEMO_TAKES = [
+  { file: "chord-exercise.flac", name: "Chord exercise in C — Mila, week 4" },
+  { file: "two-hand-study.flac", name: "Two-hand study — Jonas" },
+  { file: "string-chorale.flac", name: "Chorale, string quartet run-through" },
+];
+
+/**
+ * Adds the demo takes to the first demo project and queues their analyses (the job runner
+ * analyses them). Idempotent by take name. Uses the process-wide database (db/client).
+ */
+export async function seedDemoTakes(database: Db): Promise<number> {
+  const [demoProject] = await database
+    .select({ id: project.id })
+    .from(project)
+    .where(and(eq(project.studioId, DEMO_STUDIO.id), eq(project.name, DEMO_PROJECTS[0]!.name)));
+  const [owner] = await database.select({ id: user.id }).from(user).where(eq(user.email, DEMO_ACCOUNTS[0]!.email));
+  if (!demoProject || !owner) return 0;
+  let added = 0;
+  for (const demo of DEMO_TAKES) {
+    const [existing] = await database
+      .select({ id: take.id })
+      .from(take)
+      .where(and(eq(take.projectId, demoProject.id), eq(take.name, demo.name)));
+    if (existing) continue;
+    const bytes = new Uint8Array(await readFile(path.join(process.cwd(), "demo", demo.file)));
+    const decoded = await decodeAudio(bytes);
+    await createTake({
+      studioId: DEMO_STUDIO.id,
+      projectId: demoProject.id,
+      name: demo.name,
+      createdByUserId: owner.id,
+      original: { bytes, ext: "flac", mime: "audio/flac" },
+      decoded: { durationSec: decoded.durationSec, sampleRateHz: decoded.sampleRateHz, channels: decoded.channels },
+      settings: {},
+    });
+    added++;
+  }
+  return added;
 }

@@ -1,0 +1,37 @@
+import { sql } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { call, signIn, startTestApp, type TestApp } from "../support/app";
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_TAKES, seedDemo, seedDemoTakes } from "@/db/seed";
+import { analysis, studioMember, take, user } from "@/db/schema";
+
+let app: TestApp;
+beforeAll(async () => {
+  app = await startTestApp();
+});
+afterAll(async () => app.close());
+
+const n = async (table: typeof user | typeof studioMember | typeof take | typeof analysis) =>
+  Number((await app.db.select({ n: sql<number>`count(*)` }).from(table))[0]!.n);
+
+describe("demo seed", () => {
+  it("creates the demo studio, accounts and takes once, and again changes nothing", async () => {
+    expect((await seedDemo(app.db)).created).toBe(true);
+    expect(await seedDemoTakes(app.db)).toBe(DEMO_TAKES.length);
+    const counts = [await n(user), await n(studioMember), await n(take), await n(analysis)];
+    expect((await seedDemo(app.db)).created).toBe(false);
+    expect(await seedDemoTakes(app.db)).toBe(0);
+    expect([await n(user), await n(studioMember), await n(take), await n(analysis)]).toEqual(counts);
+    expect(counts).toEqual([3, 3, DEMO_TAKES.length, DEMO_TAKES.length]);
+  });
+
+  it("every demo account signs in with the documented password and has its role", async () => {
+    for (const account of DEMO_ACCOUNTS) {
+      const res = await signIn(account.email, DEMO_PASSWORD);
+      expect(res.status).toBe(200);
+      const cookie = res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+      const studio = await (await call("GET", "/api/v1/studio", { cookie })).json();
+      expect(studio.role).toBe(account.role);
+      expect(studio.studio.name).toBe("Linden Row Music School");
+    }
+  });
+});

@@ -14,12 +14,10 @@ export function openDb(url: string, authToken?: string): Db {
     const filePath = url.slice("file:".length);
     if (filePath && filePath !== ":memory:") mkdirSync(path.dirname(filePath), { recursive: true });
   }
+  // The busy timeout applies to every pooled connection and waits out short write locks;
+  // WAL (set once by migrateDb, it persists in the file) lets readers run while a job writes.
+  // libSQL connections enforce foreign keys by default.
   const client = createClient({ url, authToken, timeout: 5000 });
-  if (url.startsWith("file:")) {
-    // WAL lets readers run while a job writes; the busy timeout (above, per connection) waits out short locks.
-    void client.execute("PRAGMA journal_mode = WAL");
-    void client.execute("PRAGMA foreign_keys = ON");
-  }
   return drizzle(client, { schema }) as Db;
 }
 

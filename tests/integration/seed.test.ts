@@ -35,3 +35,12 @@ describe("demo seed", () => {
     }
   });
 });
+
+describe("the file database", () => {
+  it("runs in WAL mode with a busy timeout and foreign keys", async () => {
+    const c = app.db.$client;
+    expect((await c.execute("PRAGMA journal_mode")).rows[0]).toMatchObject({ journal_mode: "wal" });
+    expect(Number(Object.values((await c.execute("PRAGMA busy_timeout")).rows[0]!)[0])).toBeGreaterThanOrEqual(1000);
+    expect((await c.execute("PRAGMA foreign_keys")).rows[0]).toMatchObject({ foreign_keys: 1 });
+  });
+});

@@ -10,3 +10,15 @@ export const memberKeys = {
   invitations: () => [...memberKeys.all, "invitations"] as const,
 };
 export const studioKeys = { current: ["studio", "current"] as const };
+export const takeKeys = {
+  all: ["takes"] as const,
+  list: (projectId: string) => [...takeKeys.all, "list", projectId] as const,
+  detail: (takeId: string) => [...takeKeys.all, "detail", takeId] as const,
+  analyses: (takeId: string) => [...takeKeys.all, "analyses", takeId] as const,
+  notes: (takeId: string) => [...takeKeys.all, "notes", takeId] as const,
+};
+export const limitsKeys = { current: ["limits"] as const };
+export const apiKeyKeys = {
+  all: ["api-keys"] as const,
+  list: () => [...apiKeyKeys.all, "list"] as const,
+};

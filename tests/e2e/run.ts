@@ -1,6 +1,12 @@
 // `npm run test:e2e`: the browser tests, against the real app started by the run command.
 import assert from "node:assert/strict";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import wf from "wavefile";
 import { openBrowser, runSteps, shot, startApp } from "./harness";
+
+const { WaveFile } = wf;
 
 const app = await startApp();
 const browser = await openBrowser();
@@ -15,6 +21,30 @@ page.on("console", (m) => {
 
   if (m.type() === "error") errors.push(`console: ${m.text()}`);
 });
+
+// Test recordings, written into a throw-away folder: 3 s of a C major triad (C4 E4 G4) at 44.1 kHz, and a
+// text file that only pretends to be a WAV by its name.
+const filesDir = mkdtempSync(path.join(os.tmpdir(), "tapernote-e2e-files-"));
+const triadPath = path.join(filesDir, "triad-c-major.wav");
+const fakePath = path.join(filesDir, "not-really-audio.wav");
+{
+  const sampleRateHz = 44100;
+  const n = 3 * sampleRateHz;
+  const samples = new Int16Array(n);
+  const freqsHz = [261.63, 329.63, 392.0]; // C4, E4, G4 at A4 = 440 Hz
+  for (let i = 0; i < n; i++) {
+    const t = i / sampleRateHz;
+    // a gentle piano-like envelope: 10 ms attack, slow decay, 50 ms release
+    const env = Math.min(1, t / 0.01) * Math.exp(-0.6 * t) * Math.min(1, (3 - t) / 0.05);
+    let v = 0;
+    for (const f of freqsHz) for (let h = 1; h <= 4; h++) v += Math.sin(2 * Math.PI * f * h * t) / (h * h);
+    samples[i] = Math.round(0.22 * env * v * 32767);
+  }
+  const wav = new WaveFile();
+  wav.fromScratch(1, sampleRateHz, "16", samples);
+  writeFileSync(triadPath, wav.toBuffer());
+  writeFileSync(fakePath, "This is a shopping list, not a recording.\n".repeat(20));
+}
 
 const email = `ada.quill.${Date.now()}@example.org`;
 const projectName = "Wednesday theory group";
@@ -79,6 +109,106 @@ const failures = await runSteps([
     await page.getByText("listener@example.com").waitFor();
     await shot(page, "08-members");
   }],
+  ["the demo editor opens the demo project", async () => {
+    await page.getByRole("button", { name: "Sign out" }).first().click();
+    await page.waitForURL(/\/sign-in/);
+    await page.fill("#email", "editor@example.com");
+    await page.fill("#password", "tapernote-demo");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/projects/);
+    await page.getByRole("link", { name: "Grade 3 chord exercises" }).click();
+    await page.getByRole("heading", { name: "Grade 3 chord exercises" }).waitFor();
+    await page.getByRole("heading", { name: "Upload takes" }).waitFor();
+  }],
+  ["a file waits for the consent notice; a fake WAV is refused by its content", async () => {
+    const input = page.getByLabel("Choose recordings to upload");
+    await input.setInputFiles([fakePath]);
+    await page.getByText("1 file is waiting").waitFor();
+    assert.equal(await page.locator('[data-testid="upload-row"]').first().getAttribute("data-status"), "queued");
+    await shot(page, "09-upload-consent");
+    await page.getByLabel("I have the consent needed for these recordings.").check();
+    const row = page.locator('[data-testid="upload-row"][data-status="failed"]', { hasText: "not-really-audio.wav" });
+    await row.waitFor();
+    assert.match(await row.textContent() ?? "", /not a WAV, FLAC, MP3, OGG or M4A/);
+    await row.getByRole("button", { name: /Remove/ }).click();
+  }],
+  ["upload a WAV and watch its progress bar", async () => {
+    // Slow the link down so that the upload takes a few seconds and the bar is seen moving.
+    const cdp = await page.context().newCDPSession(page);
+    await cdp.send("Network.enable");
+    await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 80 * 1024 });
+    await page.getByLabel("Choose recordings to upload").setInputFiles([triadPath]);
+    const row = page.locator('[data-testid="upload-row"]', { hasText: "triad-c-major.wav" });
+    const bar = row.getByRole("progressbar");
+    await page.waitForFunction(
+      () => {
+        const el = [...document.querySelectorAll('[data-testid="upload-row"]')].find((r) => r.textContent?.includes("triad-c-major.wav"));
+        const now = Number(el?.querySelector('[role="progressbar"]')?.getAttribute("aria-valuenow") ?? 0);
+        return el?.getAttribute("data-status") === "uploading" && now > 0 && now < 100;
+      },
+      undefined,
+      { timeout: 20_000 },
+    );
+    const midway = Number(await bar.getAttribute("aria-valuenow"));
+    await shot(page, "10-upload-progress");
+    await page.locator('[data-testid="upload-row"][data-status="done"]', { hasText: "triad-c-major.wav" }).waitFor({ timeout: 30_000 });
+    await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+    assert.ok(midway > 0 && midway < 100, `progress seen mid-way: ${midway}%`);
+    assert.equal(await bar.getAttribute("aria-valuenow"), "100");
+  }],
+  ["the take becomes ready in the takes table", async () => {
+    const takeRow = page.getByRole("row", { name: /triad-c-major/ });
+    await takeRow.waitFor();
+    await takeRow.getByText("ready").waitFor({ timeout: 120_000 });
+    await shot(page, "11-take-ready");
+  }],
+  ["the take page shows the triad's notes", async () => {
+    await page.getByRole("link", { name: "triad-c-major" }).click();
+    await page.getByRole("heading", { name: "triad-c-major" }).waitFor();
+    await page.locator('[data-testid="analysis-status"][data-state="ready"]').waitFor();
+    const notes = page.getByRole("table", { name: "Notes of this take" });
+    await notes.waitFor();
+    const text = await notes.textContent() ?? "";
+    for (const name of ["C4", "E4", "G4"]) assert.match(text, new RegExp(name), `${name} among the notes`);
+    assert.equal(await page.locator("audio").evaluate((a: HTMLAudioElement) => a.volume), 0.25);
+    await shot(page, "12-take-page");
+  }],
+  ["the re-analyse form shows field errors next to the fields", async () => {
+    await page.fill("#s-hop", "500");
+    await page.getByRole("button", { name: "Re-analyse" }).click();
+    await page.locator("#s-hop-error").waitFor();
+    await page.locator("#s-hop-error").scrollIntoViewIfNeeded();
+    await shot(page, "13-reanalyse-errors");
+  }],
+  ["an API key is shown once", async () => {
+    await page.getByRole("link", { name: "API keys" }).click();
+    await page.getByRole("heading", { name: "API keys" }).waitFor();
+    await page.getByRole("button", { name: "New API key" }).first().click();
+    const roles = await page.locator("#api-key-role option").allTextContents();
+    assert.ok(!roles.some((r) => /^Owner/.test(r)), "an editor cannot make an owner key");
+    await page.fill("#api-key-name", "Nightly export script");
+    await page.getByRole("button", { name: "Create key" }).click();
+    const key = await page.getByTestId("new-api-key").inputValue();
+    assert.match(key, /^tn_/);
+    await shot(page, "14-api-key-once");
+    await page.getByRole("button", { name: "I have saved the key" }).click();
+    await page.getByRole("row", { name: /Nightly export script/ }).waitFor();
+    assert.ok(!(await page.textContent("body"))?.includes(key), "the key is not shown again");
+    await shot(page, "15-api-keys");
+  }],
+  ["a listener sees the takes without upload or delete", async () => {
+    await page.getByRole("button", { name: "Sign out" }).first().click();
+    await page.waitForURL(/\/sign-in/);
+    await page.fill("#email", "listener@example.com");
+    await page.fill("#password", "tapernote-demo");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/projects/);
+    await page.getByRole("link", { name: "Grade 3 chord exercises" }).click();
+    await page.getByRole("link", { name: "triad-c-major" }).waitFor();
+    assert.equal(await page.getByRole("heading", { name: "Upload takes" }).count(), 0);
+    assert.equal(await page.getByRole("button", { name: /^Delete/ }).count(), 0);
+    await shot(page, "16-listener-project");
+  }],
   ["no CSP violations or page errors", async () => {
     assert.deepEqual(errors.filter((e) => !/favicon/.test(e)), []);
   }],
@@ -86,4 +216,5 @@ const failures = await runSteps([
 
 await browser.close();
 await app.stop();
+rmSync(filesDir, { recursive: true, force: true });
 process.exit(failures ? 1 : 0);

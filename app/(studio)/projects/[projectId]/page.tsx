@@ -2,8 +2,10 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getProject } from "@/db/projects";
-import { EmptyState, Mono, PageHeader } from "@/components/ui";
-import { requirePageActor } from "@/lib/auth/page";
+import { ProjectTakesView } from "@/components/takes/ProjectTakesView";
+import { Mono, PageHeader } from "@/components/ui";
+import { CreateStudioCard } from "@/components/studio/CreateStudioCard";
+import { pageCan, requirePageActor } from "@/lib/auth/page";
 import { isAppError } from "@/lib/errors";
 
 export const metadata: Metadata = { title: "Project" };
@@ -13,6 +15,7 @@ const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "long" });
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const actor = await requirePageActor(`/projects/${projectId}`);
+  if (!actor.studioId) return <CreateStudioCard />;
   const project = await getProject(actor.studioId, projectId).catch((e) => {
     if (isAppError(e) && e.code === "not_found") notFound();
     throw e;
@@ -22,14 +25,16 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       <p className="text-sm">
         <Link href="/projects" className="text-ink-muted underline-offset-2 hover:underline">← Projects</Link>
       </p>
-      <PageHeader title={project.name} description={project.description || undefined} />
-      <p className="text-sm text-ink-muted">
-        Created <Mono>{dateFormat.format(project.createdAt)}</Mono> in {actor.studioName}.
-      </p>
-      <EmptyState
-        title="No takes in this project yet"
-        description="Takes are the recordings of this project. Uploading takes and their analysis arrive with the takes pipeline."
+      <PageHeader
+        title={project.name}
+        description={
+          <>
+            {project.description ? <span className="block">{project.description}</span> : null}
+            <span className="text-sm">Created <Mono>{dateFormat.format(project.createdAt)}</Mono> in {actor.studioName}.</span>
+          </>
+        }
       />
+      <ProjectTakesView projectId={project.id} canEdit={pageCan(actor, "edit")} />
     </div>
   );
 }

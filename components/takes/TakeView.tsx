@@ -1,0 +1,181 @@
+"use client";
+import { useQueryClient } from "@tanstack/react-query";
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useEffect, useMemo, useRef, useState } from "react";
+import { Alert, Button, Card, ConfirmDialog, EmptyState, Mono, PageHeader, Spinner } from "@/components/ui";
+import { ApiClientError } from "@/lib/client/api";
+import { takeKeys } from "@/lib/client/query-keys";
+import { AnalysesTable } from "./AnalysesTable";
+import { AnalysisStatus } from "./AnalysisStatus";
+import { formatBytes, formatChannels, formatDuration, formatSampleRate } from "./format";
+import { NotesTable } from "./NotesTable";
+import { ReanalyseForm, startingSettings } from "./ReanalyseForm";
+import { TakePlayer } from "./TakePlayer";
+import { isRunning } from "./types";
+import { useDeleteTake } from "./use-delete-take";
+import { useNotes } from "./use-notes";
+import { useTake } from "./use-take";
+
+/** The take page: header, analysis with live progress, player, notes, analyses, re-analyse. */
+export function TakeView({
+  projectId,
+  projectName,
+  takeId,
+  canEdit,
+}: {
+  projectId: string;
+  projectName: string;
+  takeId: string;
+  canEdit: boolean;
+}) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
+  const take = useTake(takeId);
+  const notes = useNotes(takeId);
+  const remove = useDeleteTake();
+  const [deleting, setDeleting] = useState(false);
+  const [deleteError, setDeleteError] = useState<string | null>(null);
+
+  const analysis = take.data?.analysis ?? null;
+  // When an analysis finishes (or a new one starts), the notes and the list of analyses change.
+  const lastSeen = useRef<string | null>(null);
+  const stamp = analysis ? `${analysis.id}:${analysis.state}` : null;
+  useEffect(() => {
+    if (stamp === null || stamp === lastSeen.current) return;
+    const first = lastSeen.current === null;
+    lastSeen.current = stamp;
+    if (first) return;
+    void queryClient.invalidateQueries({ queryKey: takeKeys.analyses(takeId) });
+    if (stamp.endsWith(":ready")) void queryClient.invalidateQueries({ queryKey: takeKeys.notes(takeId) });
+    void queryClient.invalidateQueries({ queryKey: takeKeys.list(projectId) });
+  }, [stamp, takeId, projectId, queryClient]);
+
+  const initialSettings = useMemo(() => startingSettings(analysis?.settings), [analysis?.settings]);
+
+  if (take.isPending) {
+    return (
+      <div className="flex items-center gap-2 text-ink-muted">
+        <Spinner label="Loading the take" /> Loading the take…
+      </div>
+    );
+  }
+  if (take.isError) {
+    const missing = take.error instanceof ApiClientError && take.error.status === 404;
+    return (
+      <div className="space-y-4">
+        <BackLink projectId={projectId} projectName={projectName} />
+        {missing ? (
+          <EmptyState title="This take does not exist" description="It may have been deleted for good." action={<Link href={`/projects/${projectId}`} className="underline">Back to {projectName}</Link>} />
+        ) : (
+          <Alert tone="error" title="The take could not be loaded" action={<Button size="sm" variant="secondary" onClick={() => take.refetch()}>Try again</Button>}>
+            {take.error.message}
+          </Alert>
+        )}
+      </div>
+    );
+  }
+
+  const t = take.data.take;
+  return (
+    <div className="space-y-6">
+      <BackLink projectId={projectId} projectName={projectName} />
+      <PageHeader
+        title={t.name}
+        description={
+          <span className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
+            <span>Length <Mono className="text-ink">{formatDuration(t.durationSec)}</Mono></span>
+            <span>Sample rate <Mono className="text-ink">{formatSampleRate(t.sampleRateHz)}</Mono></span>
+            <span>{formatChannels(t.channels)}</span>
+            <span>Original <Mono className="text-ink">{formatBytes(t.originalBytes)}</Mono></span>
+          </span>
+        }
+        actions={
+          canEdit ? (
+            <Button variant="secondary" onClick={() => { setDeleteError(null); setDeleting(true); }}>
+              Delete take
+            </Button>
+          ) : null
+        }
+      />
+
+      <Card title="Analysis">
+        <AnalysisStatus analysis={analysis} canEdit={canEdit} />
+      </Card>
+
+      <Card title="Original recording">
+        <TakePlayer takeId={t.id} takeName={t.name} />
+      </Card>
+
+      <Card
+        title="Notes"
+        description={
+          notes.data
+            ? notes.data.source === "revision"
+              ? <>Revision <Mono>{notes.data.revision}</Mono> · A4 = <Mono>{notes.data.referenceHz.toFixed(1)} Hz</Mono></>
+              : <>The analysis’s draft · A4 = <Mono>{notes.data.referenceHz.toFixed(1)} Hz</Mono></>
+            : undefined
+        }
+      >
+        {notes.isPending ? (
+          <Spinner label="Loading the notes" />
+        ) : notes.isError ? (
+          <Alert tone="error" title="The notes could not be loaded" action={<Button size="sm" variant="secondary" onClick={() => notes.refetch()}>Try again</Button>}>
+            {notes.error.message}
+          </Alert>
+        ) : notes.data ? (
+          <NotesTable notes={notes.data} />
+        ) : (
+          <p className="text-sm text-ink-muted">
+            {isRunning(analysis) ? "The notes appear here when the analysis is ready." : analysis?.state === "failed" ? "No notes: the analysis failed." : "No notes yet."}
+          </p>
+        )}
+      </Card>
+
+      <Card title="Analyses" description="Every run of the engine over this take, newest first." flush>
+        <div className="px-5 pb-4">
+          <AnalysesTable takeId={t.id} canEdit={canEdit} />
+        </div>
+      </Card>
+
+      {canEdit ? (
+        <Card title="Re-analyse" description="Run the engine again with other settings. The earlier analyses are kept.">
+          <ReanalyseForm key={analysis?.id ?? "none"} takeId={t.id} initial={initialSettings} />
+        </Card>
+      ) : null}
+
+      <ConfirmDialog
+        open={deleting}
+        title="Delete this take?"
+        message={
+          <>
+            <strong>{t.name}</strong> will be deleted for good: the recording, every analysis, the draft notes and all
+            revisions. This cannot be undone.
+            {deleteError ? <span className="mt-2 block text-danger" role="alert">{deleteError}</span> : null}
+          </>
+        }
+        confirmLabel="Delete for good"
+        danger
+        busy={remove.isPending}
+        onCancel={() => setDeleting(false)}
+        onConfirm={async () => {
+          try {
+            await remove.mutateAsync(t.id);
+            setDeleting(false);
+            router.push(`/projects/${projectId}`);
+          } catch (e) {
+            setDeleteError(e instanceof Error ? e.message : "Deleting failed.");
+          }
+        }}
+      />
+    </div>
+  );
+}
+
+function BackLink({ projectId, projectName }: { projectId: string; projectName: string }) {
+  return (
+    <p className="text-sm">
+      <Link href={`/projects/${projectId}`} className="text-ink-muted underline-offset-2 hover:underline">← {projectName}</Link>
+    </p>
+  );
+}

@@ -4,6 +4,8 @@
  * the track's own level rises), with a shortest note, onsets snapped to detected onsets and
  * offsets corrected for the frame length of the note's register.
  */
+import type { PeakStore } from "./peaks";
+
 export interface FrameDetections {
   /** Frames and slots per frame. */
   frames: number;
@@ -30,6 +32,8 @@ export interface TrackingConfig {
   shadowDb?: number;
   /** How far before a track's first frame its onset is searched (s). */
   onsetBackSec?: number;
+  /** Lead of an attack's start before its steepest rise (s). */
+  attackLeadSec?: number;
 }
 
 /** One tracked note: frame span and per-frame fundamental and level. */
@@ -53,10 +57,10 @@ interface Track {
   matched: boolean;
 }
 
-export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames: Int32Array, cfg: TrackingConfig): TrackedNote[] {
+export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames: Int32Array, cfg: TrackingConfig, store?: PeakStore): TrackedNote[] {
   const cont = cfg.continuityCents ?? 60;
   const maxGap = cfg.maxGapFrames ?? 6;
-  const riseDb = cfg.riseDb ?? 6;
+  const riseDb = cfg.riseDb ?? 7.5;
   const rangeDb = cfg.rangeDb ?? 50;
   const active: Track[] = [];
   const done: Track[] = [];
@@ -110,7 +114,9 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     let peak = 0;
     for (const l of tr.l) if (l > peak) peak = l;
     if (peak < minLevel || tr.t.length < 2) continue;
-    for (const seg of splitTrack(tr, onsetFrames, riseDb)) {
+    const fTrack = median(tr.f);
+    const env = (t: number) => (store ? store.harmonicLevelDb(t, fTrack) : -200);
+    for (const seg of splitTrack(tr, onsetFrames, riseDb, store ? env : null)) {
       const t0 = tr.t[seg[0]];
       const t1 = tr.t[seg[1] - 1];
       const fMed = median(tr.f.slice(seg[0], seg[1]));
@@ -136,12 +142,39 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           break;
         }
       }
-      const onsetSec = on >= 0 ? on * hop : t0 * hop + 0.25 * frameSec;
+      let onsetSec = on >= 0 ? on * hop : t0 * hop + 0.25 * frameSec;
+      let hasOnset = on >= 0;
+      if (store) {
+        // the note's own attack: the steepest rise of its partials' level in the short frames
+        const a = Math.max(2, t0 - back);
+        const b = Math.min(det.frames - 2, t0 + look);
+        let peakEnv = -200;
+        for (let t = a; t <= Math.min(det.frames - 1, t1); t++) peakEnv = Math.max(peakEnv, env(t));
+        let best = -1;
+        let bestRise = 3; // dB over 30 ms, at least
+        for (let t = a; t <= b; t++) {
+          const e1 = env(t + 1);
+          if (e1 < peakEnv - 20) continue;
+          const rise = e1 - Math.max(env(t - 2), peakEnv - 40);
+          if (rise > bestRise) {
+            bestRise = rise;
+            best = t;
+          }
+        }
+        if (best >= 0) {
+          let snap = -1;
+          for (const o of onsetFrames) if (Math.abs(o - best) <= 3 && (snap < 0 || Math.abs(o - best) < Math.abs(snap - best))) snap = o;
+          // the steepest rise lies past the start of an attack: 20 ms earlier on average (measured
+          // on rendered instruments, docs/engine.md)
+          onsetSec = Math.max(0, (snap >= 0 ? snap : best) * hop - (cfg.attackLeadSec ?? 0.02));
+          hasOnset = true;
+        }
+      }
       let offsetSec = t1 * hop - 0.25 * frameSec + hop;
       if (offsetSec < onsetSec + cfg.shortestNoteSec) offsetSec = onsetSec + cfg.shortestNoteSec;
       if ((t1 - t0 + 1) * hop < cfg.shortestNoteSec) continue;
       out.push({
-        hasOnset: on >= 0,
+        hasOnset,
         onsetSec,
         offsetSec,
         frames: Int32Array.from(tr.t.slice(seg[0], seg[1])),
@@ -168,7 +201,7 @@ function mergeFragments(notes: TrackedNote[], cents: number): TrackedNote[] {
       const p = out[i];
       if (n.onsetSec - p.offsetSec > 0.15) continue;
       if (Math.abs(1200 * Math.log2(f / median(p.f0Hz))) > cents) continue;
-      if (n.onsetSec <= p.offsetSec + 0.03 || !n.hasOnset) {
+      if (n.onsetSec < p.offsetSec - 0.03 || !n.hasOnset) {
         out[i] = {
           hasOnset: p.hasOnset,
           onsetSec: p.onsetSec,
@@ -241,7 +274,7 @@ function pruneShadows(notes: TrackedNote[], shadowDb: number): TrackedNote[] {
 }
 
 /** Index ranges [start, end) of a track split at onsets where its level rises by riseDb. */
-function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number): Array<[number, number]> {
+function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number, env: ((t: number) => number) | null): Array<[number, number]> {
   const segs: Array<[number, number]> = [];
   const n = tr.t.length;
   const db = tr.l.map((l) => 20 * Math.log10(l + 1e-12));
@@ -257,9 +290,15 @@ function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number): Array<[
     while (idx < n && tr.t[idx] < o) idx++;
     if (idx - start < 8 || n - idx < 6) continue;
     let before = Infinity;
-    for (let j = Math.max(start, idx - 5); j < idx; j++) before = Math.min(before, db[j]);
     let after = -Infinity;
-    for (let j = idx; j < Math.min(n, idx + 4); j++) after = Math.max(after, db[j]);
+    if (env) {
+      // the note's own partials in the short frames dip and rise again
+      for (let t = o - 5; t <= o; t++) before = Math.min(before, env(t));
+      for (let t = o; t <= o + 4; t++) after = Math.max(after, env(t));
+    } else {
+      for (let j = Math.max(start, idx - 5); j < idx; j++) before = Math.min(before, db[j]);
+      for (let j = idx; j < Math.min(n, idx + 4); j++) after = Math.max(after, db[j]);
+    }
     if (after - before >= riseDb) {
       segs.push([start, idx]);
       start = idx;

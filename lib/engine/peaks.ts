@@ -81,3 +81,61 @@ export function findPeaks(
   }
   return n;
 }
+
+/**
+ * The short-frame (high-register) peaks of every frame, kept for the note stage: a note's own
+ * harmonic level at 10 ms resolution locates its attack and its re-articulations, however many
+ * other voices start nearby.
+ */
+export class PeakStore {
+  readonly frames: number;
+  readonly cap: number;
+  readonly freqHz: Float32Array;
+  readonly amp: Float32Array;
+  readonly count: Uint8Array;
+  constructor(frames: number, cap: number, readonly minHz: number, readonly maxHz: number) {
+    this.frames = frames;
+    this.cap = Math.min(255, cap);
+    this.freqHz = new Float32Array(frames * this.cap);
+    this.amp = new Float32Array(frames * this.cap);
+    this.count = new Uint8Array(frames);
+  }
+
+  /** Keep peaks [from, to) of a frame's (sorted) peak list whose frequency is in [minHz, maxHz). */
+  put(t: number, freqHz: Float32Array, amp: Float32Array, from: number, to: number): void {
+    let n = 0;
+    const base = t * this.cap;
+    for (let i = from; i < to && n < this.cap; i++) {
+      const f = freqHz[i];
+      if (f < this.minHz || f >= this.maxHz) continue;
+      this.freqHz[base + n] = f;
+      this.amp[base + n] = amp[i];
+      n++;
+    }
+    this.count[t] = n;
+  }
+
+  /**
+   * Level (dB) of the partials of f0Hz in frame t: 20·log10 Σ_h a_h, a_h the strongest peak
+   * within ±40 cents of h·f0 (h ≤ 24, inside the stored band); −200 when none.
+   */
+  harmonicLevelDb(t: number, f0Hz: number): number {
+    if (t < 0 || t >= this.frames) return -200;
+    const n = this.count[t];
+    const base = t * this.cap;
+    let sum = 0;
+    let i = 0;
+    const r = 1.0234; // 40 cents
+    for (let h = Math.max(1, Math.ceil(this.minHz / (f0Hz * r))); h <= 24; h++) {
+      const c = h * f0Hz;
+      if (c > this.maxHz) break;
+      const lo = c / r;
+      const hi = c * r;
+      while (i < n && this.freqHz[base + i] < lo) i++;
+      let best = 0;
+      for (let j = i; j < n && this.freqHz[base + j] <= hi; j++) if (this.amp[base + j] > best) best = this.amp[base + j];
+      sum += best;
+    }
+    return sum > 0 ? 20 * Math.log10(sum) : -200;
+  }
+}

@@ -2,7 +2,7 @@ import { parseSettings, type Settings, type SettingsInput } from "./settings";
 import { checkSamples } from "./decode";
 import { resample } from "./resample";
 import { SpectrumPlan } from "./stft";
-import { findPeaks, PeakScratch, type PeakParams } from "./peaks";
+import { findPeaks, PeakScratch, PeakStore, type PeakParams } from "./peaks";
 import { MultiPitchEstimator } from "./multipitch";
 import { SpectralFlux, pickOnsets } from "./onsets";
 import { trackNotes, type FrameDetections } from "./notes";
@@ -69,6 +69,7 @@ export async function transcribe(
   const signals: Float32Array[] = [];
   for (const r of plan) signals.push(r.rateHz === ANALYSIS_RATE_HZ ? x16 : await resample(x16, ANALYSIS_RATE_HZ, r.rateHz));
   onProgress?.(0.1);
+  const tune = process.env.TN_TUNE ? JSON.parse(process.env.TN_TUNE) : {};
   const taperParams = { kaiserBeta: settings.kaiserBeta, gaussianAlpha: settings.gaussianAlpha };
   const lowHz = midiToHz(settings.pitchRange.lowMidi) * 0.97;
   const regs = plan.map((r, i) => {
@@ -86,7 +87,7 @@ export async function transcribe(
       rangeDb: 70,
       minPower: Math.pow((1e-4 * spec.taperSum) / 2, 2),
       floorHalfWidth: Math.max(4, Math.round((6 * nativeBinHz) / spec.binHz)),
-      floorFactor: 2.5,
+      floorFactor: tune.floorFactor ?? 4,
     };
     return { ...r, signal: signals[i], spec, peak, scratch: new PeakScratch(spec.bins), frameSec: N / r.rateHz };
   });
@@ -118,14 +119,19 @@ export async function transcribe(
   );
   const high = regs[regs.length - 1];
   const flux = new SpectralFlux(Math.floor(50 / high.spec.binHz), Math.ceil(6000 / high.spec.binHz));
+  const store = new PeakStore(frames, PEAKS_PER_REGISTER, high.loHz, high.hiHz);
   const progressEvery = Math.max(1, Math.floor(frames / 20));
   for (let t = 0; t < frames; t++) {
     let n = 0;
     for (const r of regs) {
       const centre = Math.round(t * hopSec * r.rateHz);
       const power = r.spec.analyse(r.signal, centre);
+      const from = n;
       n = findPeaks(power, r.peak, r.scratch, pf, pa, n);
-      if (r === high) odf[t] = flux.next(power);
+      if (r === high) {
+        odf[t] = flux.next(power);
+        store.put(t, pf, pa, from, n);
+      }
       if (n > maxPeaks) n = maxPeaks;
     }
     det.count[t] = est.estimate(pf, pa, n, det.f0Hz, det.level, salience, t * V);
@@ -138,7 +144,8 @@ export async function transcribe(
     hopSec,
     shortestNoteSec: settings.shortestNoteMs / 1000,
     frameLengthSecFor,
-  });
+    ...(tune.tracking ?? {}),
+  }, store);
   onProgress?.(0.95);
   const notes: Note[] = [];
   const centsList: number[] = [];

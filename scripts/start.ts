@@ -1,8 +1,10 @@
 /**
  * The run command (`npm start`, or `npm run dev` with --dev): applies migrations, seeds
  * the demo studio and starts the local fakes outside production, then runs Next.js
- * (a production build, built first when missing or older than the sources) in its own
- * process group, and stops everything together.
+ * (a production build, built first when missing or older than the sources) and the
+ * analysis job runner (scripts/worker.ts), each in its own process group, and stops
+ * everything together. A job runner that dies is restarted with a back-off; it never
+ * takes the web server down.
  */
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { existsSync, mkdirSync, readdirSync, statSync } from "node:fs";
@@ -70,6 +72,8 @@ async function main() {
     }
   }
 
+  const worker = superviseWorker();
+
   const args = dev ? ["dev", "-p", String(env.PORT)] : ["start", "-p", String(env.PORT)];
   const child: ChildProcess = spawn(process.execPath, [nextBin, ...args], {
     stdio: "inherit",
@@ -87,12 +91,70 @@ async function main() {
     } catch {
       // already gone
     }
+    await worker.stop();
     await smtp?.close();
     process.exit(code);
   };
   process.on("SIGINT", () => void stop(0));
   process.on("SIGTERM", () => void stop(0));
   child.on("exit", (code) => void stop(code ?? 0));
+}
+
+// Back-off between restarts of a job runner that died: 1 s, 2 s, 4 s … at most 30 s; a runner
+// that stayed up for a minute starts the count again.
+const RESTART_MIN_MS = 1000;
+const RESTART_MAX_MS = 30_000;
+const STABLE_MS = 60_000;
+// The runner needs a moment to put its running jobs back in the queue before it exits.
+const WORKER_STOP_MS = 12_000;
+
+/** Runs the analysis job runner in its own process group and restarts it when it dies. */
+function superviseWorker(): { stop: () => Promise<void> } {
+  let current: ChildProcess | undefined;
+  let restartTimer: NodeJS.Timeout | undefined;
+  let delayMs = RESTART_MIN_MS;
+  let stopping = false;
+
+  const launch = () => {
+    const startedAtMs = Date.now();
+    const proc = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", path.join("scripts", "worker.ts")], {
+      stdio: "inherit",
+      detached: true, // its own process group, like Next.js: we decide when it stops
+      env: process.env,
+    });
+    current = proc;
+    proc.on("exit", (code, signal) => {
+      current = undefined;
+      if (stopping) return;
+      if (Date.now() - startedAtMs >= STABLE_MS) delayMs = RESTART_MIN_MS;
+      console.error(`[start] the job runner exited (${signal ?? `code ${code}`}); restarting in ${delayMs / 1000} s`);
+      restartTimer = setTimeout(launch, delayMs);
+      delayMs = Math.min(RESTART_MAX_MS, delayMs * 2);
+    });
+    proc.on("error", (e) => console.error("[start] the job runner could not start:", e.message));
+  };
+  launch();
+
+  return {
+    stop: async () => {
+      stopping = true;
+      clearTimeout(restartTimer);
+      const proc = current;
+      if (!proc?.pid || proc.exitCode !== null || proc.signalCode !== null) return;
+      const exited = new Promise<void>((resolve) => proc.once("exit", () => resolve()));
+      const signal = (name: NodeJS.Signals) => {
+        try {
+          process.kill(-proc.pid!, name);
+        } catch {
+          // already gone
+        }
+      };
+      signal("SIGTERM");
+      const timer = setTimeout(() => signal("SIGKILL"), WORKER_STOP_MS);
+      await exited;
+      clearTimeout(timer);
+    },
+  };
 }
 
 main().catch((e) => {

@@ -1,0 +1,100 @@
+/**
+ * Helpers for the analysis-job tests: rendered tone takes (wavefile), a studio + project + take
+ * inserted directly, and waiting on an analysis row.
+ */
+import { mkdtempSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import wf from "wavefile";
+import { eq } from "drizzle-orm";
+import type { Db } from "@/db/client";
+import { newId } from "@/db/ids";
+import { analysis, draft, project, studio, take } from "@/db/schema";
+import { storeFile } from "@/lib/storage/files";
+
+const { WaveFile } = wf;
+
+/** A fresh DATA_DIR for one test file (pass it to startTestApp). */
+export function tempDataDir(): string {
+  return mkdtempSync(path.join(os.tmpdir(), "tapernote-uploads-"));
+}
+
+/**
+ * A 16-bit mono WAV of tones sounding together from `startSec` to the end: each tone has six
+ * harmonics at 1/h amplitude (a plain sine pair would also be a harmonic series of its
+ * difference tone, which is not what an instrument plays).
+ */
+export function toneWav(durationSec: number, freqsHz: number[], options: { sampleRateHz?: number; startSec?: number } = {}): Uint8Array {
+  const sampleRateHz = options.sampleRateHz ?? 16000;
+  const startSec = options.startSec ?? 0.25;
+  const samples = new Int16Array(Math.round(durationSec * sampleRateHz));
+  const gain = 0.35 / freqsHz.length;
+  for (let i = 0; i < samples.length; i++) {
+    const tSec = i / sampleRateHz;
+    if (tSec < startSec) continue;
+    let v = 0;
+    for (const f of freqsHz) for (let h = 1; h <= 6; h++) v += Math.sin(2 * Math.PI * f * h * tSec) / h;
+    const attack = Math.min(1, (tSec - startSec) / 0.02);
+    samples[i] = Math.round(32767 * gain * attack * v);
+  }
+  const wav = new WaveFile();
+  wav.fromScratch(1, sampleRateHz, "16", samples);
+  return wav.toBuffer();
+}
+
+export type SeededTake = { studioId: string; projectId: string; takeId: string };
+
+/** Inserts a studio (or reuses one), a project and a take whose analysis file holds `bytes`. */
+export async function seedTake(database: Db, bytes: Uint8Array, options: { studioId?: string; durationSec?: number } = {}): Promise<SeededTake> {
+  const studioId = options.studioId ?? newId();
+  if (!options.studioId) await database.insert(studio).values({ id: studioId, name: `Studio ${studioId.slice(0, 8)}` });
+  const projectId = newId();
+  await database.insert(project).values({ id: projectId, studioId, name: `Project ${projectId.slice(0, 8)}` });
+  const takeId = newId();
+  const stored = await storeFile(takeId, "analysis", "wav", bytes);
+  await database.insert(take).values({
+    id: takeId,
+    studioId,
+    projectId,
+    name: "Tone take",
+    originalKey: stored.key,
+    originalMime: "audio/wav",
+    originalBytes: bytes.length,
+    originalSha256: stored.sha256,
+    analysisKey: stored.key,
+    durationSec: options.durationSec ?? 0,
+    sampleRateHz: 16000,
+    channels: 1,
+  });
+  return { studioId, projectId, takeId };
+}
+
+export async function analysisRow(database: Db, id: string) {
+  const [row] = await database.select().from(analysis).where(eq(analysis.id, id));
+  return row;
+}
+
+export async function draftRow(database: Db, analysisId: string) {
+  const [row] = await database.select().from(draft).where(eq(draft.analysisId, analysisId));
+  return row;
+}
+
+/** Polls the analysis row until `done(row)` holds; returns it. Also collects every progress seen. */
+export async function waitForAnalysis(
+  database: Db,
+  id: string,
+  done: (row: NonNullable<Awaited<ReturnType<typeof analysisRow>>>) => boolean,
+  timeoutMs = 30_000,
+  seenProgress: number[] = [],
+) {
+  const start = Date.now();
+  for (;;) {
+    const row = await analysisRow(database, id);
+    if (row) {
+      if (seenProgress.at(-1) !== row.progressPercent) seenProgress.push(row.progressPercent);
+      if (done(row)) return row;
+    }
+    if (Date.now() - start > timeoutMs) throw new Error(`analysis ${id} did not get there: ${JSON.stringify(row)}`);
+    await new Promise((r) => setTimeout(r, 40));
+  }
+}

@@ -34,6 +34,8 @@ export interface TrackingConfig {
   onsetBackSec?: number;
   /** Lead of an attack's start before its steepest rise (s). */
   attackLeadSec?: number;
+  /** Below this fundamental (Hz) the detection-function onset may precede the partials' rise. */
+  lowRegisterHz?: number;
 }
 
 /** One tracked note: frame span and per-frame fundamental and level. */
@@ -166,7 +168,10 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           for (const o of onsetFrames) if (Math.abs(o - best) <= 3 && (snap < 0 || Math.abs(o - best) < Math.abs(snap - best))) snap = o;
           // the steepest rise lies past the start of an attack: 20 ms earlier on average (measured
           // on rendered instruments, docs/engine.md)
-          onsetSec = Math.max(0, (snap >= 0 ? snap : best) * hop - (cfg.attackLeadSec ?? 0.02));
+          const envOnset = Math.max(0, (snap >= 0 ? snap : best) * hop - (cfg.attackLeadSec ?? 0.02));
+          // a low voice's upper partials (all the short frames see of it) swell after its
+          // attack: an earlier detected onset close before wins
+          onsetSec = on >= 0 && fMed < (cfg.lowRegisterHz ?? 250) && on * hop < envOnset && on * hop > envOnset - 0.12 ? on * hop : envOnset;
           hasOnset = true;
         }
       }

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, lt, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, lt, or, sql } from "drizzle-orm";
 import { db, type Db } from "./client";
 import { newId } from "./ids";
 import { analysis, draft, take, type AnalysisState } from "./schema";
@@ -298,6 +298,9 @@ export async function requeueAnalysis(
   return rows.length > 0;
 }
 
+// A job analysing without a lease cannot be renewed by anyone, so it counts as expired.
+const leaseOver = (now: Date) => or(lt(analysis.leaseUntil, now), isNull(analysis.leaseUntil));
+
 export function interruptedMessage(attempts: number): string {
   return (
     `The analysis was interrupted ${attempts} ${attempts === 1 ? "time" : "times"} before it could finish ` +
@@ -320,7 +323,7 @@ export async function recoverInterrupted(
   const expired = await database
     .select({ id: analysis.id, attempts: analysis.attempts, cancelRequested: analysis.cancelRequested, workerId: analysis.workerId })
     .from(analysis)
-    .where(and(eq(analysis.state, "analysing"), lt(analysis.leaseUntil, now)));
+    .where(and(eq(analysis.state, "analysing"), leaseOver(now)));
   let requeued = 0;
   let failed = 0;
   for (const job of expired) {
@@ -328,7 +331,7 @@ export async function recoverInterrupted(
     const stillExpired = and(
       eq(analysis.id, job.id),
       eq(analysis.state, "analysing"),
-      lt(analysis.leaseUntil, now),
+      leaseOver(now),
       job.workerId === null ? sql`${analysis.workerId} is null` : eq(analysis.workerId, job.workerId),
     );
     if (job.cancelRequested || job.attempts >= maxAttempts) {

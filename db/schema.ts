@@ -194,3 +194,67 @@ export const apiKey = sqliteTable(
   },
   (t) => [index("api_key_studio_idx").on(t.studioId)],
 );
+
+export const PURCHASE_STATES = ["pending", "paid", "failed"] as const;
+
+/** An export pack bought through Stripe Checkout; credited once, by the signed webhook. */
+export const purchase = sqliteTable(
+  "purchase",
+  {
+    id: text("id").primaryKey(),
+    studioId: text("studio_id")
+      .notNull()
+      .references(() => studio.id, { onDelete: "cascade" }),
+    pack: text("pack").notNull(),
+    credits: integer("credits").notNull(),
+    /** Money is integer cents. */
+    amountCents: integer("amount_cents").notNull(),
+    currency: text("currency").notNull(),
+    stripeSessionId: text("stripe_session_id").unique(),
+    state: text("state", { enum: PURCHASE_STATES }).notNull().default("pending"),
+    createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    paidAt: integer("paid_at", { mode: "timestamp_ms" }),
+  },
+  (t) => [index("purchase_studio_idx").on(t.studioId)],
+);
+
+export const LEDGER_KINDS = ["grant", "purchase", "use"] as const;
+
+/**
+ * Every grant (the free monthly allowance), purchase and use of export credits is a row;
+ * the balance is derived from the rows. `amount` is +credits or −credits.
+ */
+export const creditLedger = sqliteTable(
+  "credit_ledger",
+  {
+    id: text("id").primaryKey(),
+    studioId: text("studio_id")
+      .notNull()
+      .references(() => studio.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: LEDGER_KINDS }).notNull(),
+    amount: integer("amount").notNull(),
+    /** For grants and uses of the allowance: the month, "YYYY-MM" (UTC). */
+    period: text("period"),
+    /** For uses: which pool paid, "allowance" or "purchased". */
+    pool: text("pool", { enum: ["allowance", "purchased"] }).notNull(),
+    purchaseId: text("purchase_id").references(() => purchase.id, { onDelete: "set null" }),
+    takeId: text("take_id"),
+    detail: text("detail").notNull().default(""),
+    createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index("credit_ledger_studio_idx").on(t.studioId, t.createdAt),
+    // one allowance grant per studio and month, one credit row per purchase (partial unique indexes)
+    uniqueIndex("credit_ledger_grant_uq").on(t.studioId, t.period).where(sql`kind = 'grant'`),
+    uniqueIndex("credit_ledger_purchase_uq").on(t.purchaseId).where(sql`kind = 'purchase'`),
+  ],
+);
+
+/** Stripe events already handled (webhook idempotency). */
+export const stripeEvent = sqliteTable("stripe_event", {
+  id: text("id").primaryKey(),
+  type: text("type").notNull(),
+  receivedAt: createdAt(),
+});

@@ -39,3 +39,16 @@ export function invitationMail(studioName: string, inviterName: string, role: st
     html: page(lines, { href: url, label: "Accept the invitation" }),
   };
 }
+
+export function receiptMail(name: string, credits: number, price: string, reference: string) {
+  const lines = [
+    `Hello${name ? ` ${name}` : ""},`,
+    `thank you for your purchase: ${credits} export credits for ${price}.`,
+    `The credits are now in your studio's balance. Reference: ${reference}.`,
+  ];
+  return {
+    subject: `Your Tapernote receipt: ${credits} export credits`,
+    text: `${lines.join("\n")}\n\nThis is your receipt; keep it for your records.`,
+    html: `<div style="font-family:sans-serif;color:#1D2433;background:#FAF7F0;padding:24px">${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join("")}</div>`,
+  };
+}

@@ -43,6 +43,9 @@ const routes: [RegExp, string[], () => Promise<RouteModule>][] = [
   [/^\/api\/v1\/api-keys\/([^/]+)$/, ["keyId"], () => import("@/app/api/v1/api-keys/[keyId]/route") as Promise<RouteModule>],
   [/^\/api\/v1\/limits$/, [], () => import("@/app/api/v1/limits/route") as Promise<RouteModule>],
   [/^\/api\/v1\/openapi\.json$/, [], () => import("@/app/api/v1/openapi.json/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/credits$/, [], () => import("@/app/api/v1/credits/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/billing\/checkout$/, [], () => import("@/app/api/v1/billing/checkout/route") as Promise<RouteModule>],
+  [/^\/api\/stripe\/webhook$/, [], () => import("@/app/api/stripe/webhook/route") as Promise<RouteModule>],
 ];
 
 export type TestApp = {
@@ -161,3 +164,22 @@ export async function signIn(email: string, password = "correct horse 42"): Prom
 }
 
 export { auth };
+
+/** A loopback HTTP server in front of the route handlers, for callers that need a URL (the fake Stripe's webhooks). */
+export async function serveRoutes(onRequest?: (method: string, path: string, body: string, headers: Headers) => void) {
+  const { createServer } = await import("node:http");
+  const server = createServer(async (req, res) => {
+    const chunks: Buffer[] = [];
+    for await (const c of req) chunks.push(c as Buffer);
+    const body = Buffer.concat(chunks).toString("utf8");
+    const headers: Record<string, string> = {};
+    for (const [k, v] of Object.entries(req.headers)) if (typeof v === "string") headers[k] = v;
+    onRequest?.(req.method!, req.url!, body, new Headers(headers));
+    const response = await call(req.method!, req.url!, { rawBody: body || undefined, headers });
+    res.writeHead(response.status, Object.fromEntries(response.headers));
+    res.end(Buffer.from(await response.arrayBuffer()));
+  });
+  await new Promise<void>((r) => server.listen(0, "127.0.0.1", () => r()));
+  const port = (server.address() as { port: number }).port;
+  return { url: `http://127.0.0.1:${port}`, close: () => new Promise<void>((r) => server.close(() => r())) };
+}

@@ -11,7 +11,10 @@ import { existsSync, mkdirSync, readdirSync, statSync } from "node:fs";
 import path from "node:path";
 import { openDb } from "@/db/client";
 import { migrateDb } from "@/db/migrate";
-import { seedDemo } from "@/db/seed";
+import { seedDemo, seedDemoTakes } from "@/db/seed";
+import { stripeConfig } from "@/lib/billing/stripe";
+import { appUrl } from "@/lib/env";
+import { startFakeStripe, type FakeStripe } from "./fakes/stripe";
 import { isProductionEnv, serverEnv } from "@/lib/env";
 import { startSmtpCatcher, type SmtpCatcher } from "./fakes/smtp-catcher";
 
@@ -52,8 +55,18 @@ async function main() {
   if (!production) {
     const { created } = await seedDemo(database);
     console.log(created ? "[start] demo studio seeded" : "[start] demo studio present");
+    const takes = await seedDemoTakes(database);
+    if (takes) console.log(`[start] ${takes} demo takes added; the job runner analyses them`);
   }
   database.$client.close();
+
+  // Stripe: the local fake unless real keys are configured.
+  let fakeStripe: FakeStripe | undefined;
+  if (!production && !process.env.STRIPE_SECRET_KEY) {
+    const cfg = stripeConfig();
+    fakeStripe = await startFakeStripe({ port: Number(cfg.port), webhookUrl: `${appUrl()}/api/stripe/webhook`, webhookSecret: cfg.webhookSecret });
+    console.log(`[start] fake Stripe on ${fakeStripe.url} (test cards: 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)`);
+  }
 
   let smtp: SmtpCatcher | undefined;
   const loopbackSmtp = env.SMTP_HOST === "127.0.0.1" || env.SMTP_HOST === "localhost";
@@ -68,6 +81,7 @@ async function main() {
     if (build.status !== 0) {
       console.error("[start] build failed");
       await smtp?.close();
+      await fakeStripe?.close();
       process.exit(build.status ?? 1);
     }
   }
@@ -93,6 +107,7 @@ async function main() {
     }
     await worker.stop();
     await smtp?.close();
+    await fakeStripe?.close();
     process.exit(code);
   };
   process.on("SIGINT", () => void stop(0));

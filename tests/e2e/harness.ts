@@ -26,7 +26,7 @@ export async function freePort(): Promise<number> {
 export type RunningApp = { baseUrl: string; dataDir: string; stop: () => Promise<void> };
 
 export async function startApp(extraEnv: Record<string, string> = {}): Promise<RunningApp> {
-  const [port, smtpPort] = [await freePort(), await freePort()];
+  const [port, smtpPort, stripePort] = [await freePort(), await freePort(), await freePort()];
   const dataDir = mkdtempSync(path.join(os.tmpdir(), "tapernote-e2e-"));
   const env = {
     ...process.env,
@@ -36,6 +36,7 @@ export async function startApp(extraEnv: Record<string, string> = {}): Promise<R
     DATA_DIR: path.join(dataDir, "uploads"),
     MAILBOX_DIR: path.join(dataDir, "mailbox"),
     SMTP_PORT: String(smtpPort),
+    STRIPE_API_PORT: String(stripePort),
     AUTH_RATE_LIMIT_MAX: "1000",
     NEXT_TELEMETRY_DISABLED: "1",
     ...extraEnv,

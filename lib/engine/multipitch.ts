@@ -34,11 +34,16 @@ export interface MultiPitchConfig {
   octaveKappa?: number;
   /** Salience factor for a candidate detected in the previous frame (hysteresis). */
   continuityBonus?: number;
+  /** Salience factor for a sub-harmonic of a detected voice without a fundamental of its own. */
+  subPenalty?: number;
 }
 
 const MIDI_TABLE = 160;
 /** Partials followed (and cancelled) per detected sound. */
 const HCANCEL = 40;
+/** 12·log2(h) for h = 1 … 40, and the partial windows (semitones): 15 + 2h cents, at most 50. */
+const LOG2H = Float32Array.from({ length: HCANCEL }, (_, i) => 12 * Math.log2(i + 1));
+const TOL_SEMIS = Float32Array.from({ length: HCANCEL }, (_, i) => Math.min(0.5, (15 + 2 * (i + 1)) / 100));
 
 export class MultiPitchEstimator {
   readonly cfg: Required<MultiPitchConfig>;
@@ -61,7 +66,7 @@ export class MultiPitchEstimator {
   private readonly cur: Uint8Array;
 
   constructor(cfg: MultiPitchConfig, maxPeaks: number) {
-    this.cfg = { maxHarmonics: 10, gamma: 0.5, alphaHz: 52, betaHz: 320, kappa: 2, lonePenalty: 0.3, octaveKappa: 2, continuityBonus: 1.3, ...cfg };
+    this.cfg = { maxHarmonics: 10, gamma: 0.5, alphaHz: 52, betaHz: 320, kappa: 2, lonePenalty: 0.3, octaveKappa: 2, continuityBonus: 1.3, subPenalty: 0, ...cfg };
     this.nCand = this.cfg.highMidi - this.cfg.lowMidi + 1;
     this.H = this.cfg.maxHarmonics;
     this.centre = new Float32Array(this.nCand * this.H);
@@ -159,20 +164,26 @@ export class MultiPitchEstimator {
         let s = 0;
         let parts = 0;
         const base = c * H;
-        for (let h = 0; h < H; h++) {
-          const w = this.weight[base + h];
-          if (w === 0) break;
-          const k = this.bestIn(this.centre[base + h], 0.5, n);
-          if (k >= 0) {
-            s += w * rc[k];
-            parts++;
+        // the candidate's own series: anchored on its fundamental (or 2nd/3rd partial), then
+        // every partial within a narrow window, so two voices in one semitone window never merge
+        const f0a = this.anchorOf(c, n, freqHz);
+        if (f0a > 0) {
+          const m0 = 69 + 12 * Math.log2(f0a / 440);
+          for (let h = 0; h < H; h++) {
+            const w = this.weight[base + h];
+            if (w === 0) break;
+            const k = this.bestIn(m0 + LOG2H[h], TOL_SEMIS[h], n);
+            if (k >= 0) {
+              s += w * rc[k];
+              parts++;
+            }
           }
         }
         // a lone peak is weak evidence for a harmonic sound wherever its 2nd partial could show
         if (parts < 2 && this.weight[base + 1] > 0) s *= this.cfg.lonePenalty;
         // a fundamental below a detected voice, at 1/2, 1/3 or 1/4 of it, must show its own
         // fundamental, else it is only that voice's partials seen again
-        if (count > 0 && this.isSubharmonic(c, count, outF0Hz, outOffset) && !(this.bestIn(this.centre[base], 0.5, n) >= 0)) s = 0;
+        if (count > 0 && this.isSubharmonic(c, count, outF0Hz, outOffset) && !(this.bestIn(this.centre[base], 0.5, n) >= 0)) s *= this.cfg.subPenalty;
         if (this.prev[c]) s *= this.cfg.continuityBonus;
         this.sal[c] = s;
         if (s > bestS) {
@@ -299,23 +310,31 @@ export class MultiPitchEstimator {
     return false;
   }
 
+  /**
+   * Fundamental the candidate's series hangs on: the strongest residual peak in the
+   * fundamental's ±50-cent window, unless it is > 20 dB under the 2nd/3rd partials' windows;
+   * else the 2nd partial / 2, else the 3rd / 3. 0 when there is none.
+   */
+  private anchorOf(c: number, n: number, freqHz: Float32Array): number {
+    const base = c * this.H;
+    const r = this.resid;
+    const k1 = this.bestIn(this.centre[base], 0.5, n);
+    const k2 = this.weight[base + 1] > 0 ? this.bestIn(this.centre[base + 1], 0.5, n) : -1;
+    const k3 = this.weight[base + 2] > 0 ? this.bestIn(this.centre[base + 2], 0.5, n) : -1;
+    const a2 = k2 >= 0 ? r[k2] : 0;
+    const a3 = k3 >= 0 ? r[k3] : 0;
+    if (k1 >= 0 && r[k1] >= 0.1 * Math.max(a2, a3)) return freqHz[k1];
+    if (k2 >= 0 && a2 >= 0.1 * a3) return freqHz[k2] / 2;
+    if (k3 >= 0) return freqHz[k3] / 3;
+    return 0;
+  }
+
   /** Fill `matched` for candidate c around its refined fundamental; return that fundamental (Hz) or 0. */
   private refine(c: number, n: number, freqHz: Float32Array, amp: Float32Array): number {
     const H = this.H;
     const base = c * H;
     const r = this.resid;
-    // anchor: the strongest weighted partial among h = 1 … 4
-    let anchorF0 = 0;
-    let anchorV = 0;
-    for (let h = 0; h < Math.min(4, H); h++) {
-      const w = this.weight[base + h];
-      if (w === 0) break;
-      const k = this.bestIn(this.centre[base + h], 0.5, n);
-      if (k >= 0 && w * r[k] > anchorV) {
-        anchorV = w * r[k];
-        anchorF0 = freqHz[k] / (h + 1);
-      }
-    }
+    const anchorF0 = this.anchorOf(c, n, freqHz);
     this.matched.fill(-1);
     this.nMatched = 0;
     if (anchorF0 <= 0) return 0;

@@ -36,6 +36,10 @@ export interface TrackingConfig {
   attackLeadSec?: number;
   /** Below this fundamental (Hz) the detection-function onset may precede the partials' rise. */
   lowRegisterHz?: number;
+  /** A split needs a detection-function peak ≥ this fraction of its 95th percentile. */
+  splitOdfFraction?: number;
+  /** A rise of the note's partials (dB over 30 ms) that counts as an attack without a detection-function peak. */
+  attackRiseDb?: number;
 }
 
 /** One tracked note: frame span and per-frame fundamental and level. */
@@ -112,13 +116,16 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
   const minLevel = maxLevel * Math.pow(10, -rangeDb / 20);
   const out: TrackedNote[] = [];
   const hop = cfg.hopSec;
+  // a re-articulation needs a real attack: a detection-function peak of at least this height
+  const sortedOdf = Float32Array.from(odf).sort();
+  const splitOdf = (cfg.splitOdfFraction ?? 0.3) * (sortedOdf[Math.floor(0.95 * (sortedOdf.length - 1))] || 0);
   for (const tr of done) {
     let peak = 0;
     for (const l of tr.l) if (l > peak) peak = l;
     if (peak < minLevel || tr.t.length < 2) continue;
     const fTrack = median(tr.f);
     const env = (t: number) => (store ? store.harmonicLevelDb(t, fTrack) : -200);
-    for (const seg of splitTrack(tr, onsetFrames, riseDb, store ? env : null)) {
+    for (const seg of splitTrack(tr, onsetFrames, riseDb, store ? env : null, odf, splitOdf)) {
       const t0 = tr.t[seg[0]];
       const t1 = tr.t[seg[1] - 1];
       const fMed = median(tr.f.slice(seg[0], seg[1]));
@@ -172,7 +179,8 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           // a low voice's upper partials (all the short frames see of it) swell after its
           // attack: an earlier detected onset close before wins
           onsetSec = on >= 0 && fMed < (cfg.lowRegisterHz ?? 250) && on * hop < envOnset && on * hop > envOnset - 0.12 ? on * hop : envOnset;
-          hasOnset = true;
+          // an attack of its own: a clear detection-function peak there, or a steep rise
+          hasOnset = (snap >= 0 && odf[snap] >= splitOdf) || bestRise >= (cfg.attackRiseDb ?? 15);
         }
       }
       let offsetSec = t1 * hop - 0.25 * frameSec + hop;
@@ -248,12 +256,10 @@ const HARMONIC_SEMIS = [2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12].map((h) => 12 * Math
 function pruneShadows(notes: TrackedNote[], shadowDb: number): TrackedNote[] {
   const info = notes.map((n) => {
     let peak = 0;
-    let sum = 0;
     for (const l of n.level) {
       if (l > peak) peak = l;
-      sum += l;
     }
-    return { midi: 69 + 12 * Math.log2(median(n.f0Hz) / 440), levelDb: 20 * Math.log10(sum / Math.max(1, n.level.length) + 1e-12) };
+    return { midi: 69 + 12 * Math.log2(median(n.f0Hz) / 440), levelDb: 20 * Math.log10(peak + 1e-12) };
   });
   const keep = notes.map(() => true);
   const ratio = shadowDb;
@@ -279,7 +285,7 @@ function pruneShadows(notes: TrackedNote[], shadowDb: number): TrackedNote[] {
 }
 
 /** Index ranges [start, end) of a track split at onsets where its level rises by riseDb. */
-function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number, env: ((t: number) => number) | null): Array<[number, number]> {
+function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number, env: ((t: number) => number) | null, odf: Float32Array, minOdf: number): Array<[number, number]> {
   const segs: Array<[number, number]> = [];
   const n = tr.t.length;
   const db = tr.l.map((l) => 20 * Math.log10(l + 1e-12));
@@ -293,7 +299,7 @@ function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number, env: ((t
     const o = onsetFrames[oi];
     if (o >= tLast - 2) break;
     while (idx < n && tr.t[idx] < o) idx++;
-    if (idx - start < 8 || n - idx < 6) continue;
+    if (idx - start < 8 || n - idx < 6 || odf[o] < minOdf) continue;
     let before = Infinity;
     let after = -Infinity;
     if (env) {

@@ -235,6 +235,18 @@ describe("MIDI options", () => {
     expect(got.map((n) => [n.start, n.length])).toEqual([[0, 480], [480, 960]]);
   });
 
+  it("gives notes of one voice that start on one tick one bend with their mean cents", () => {
+    const chord = [
+      { onsetSec: 0, offsetSec: 1, pitch: 60, cents: 10, velocity: 90, voice: 1 },
+      { onsetSec: 0, offsetSec: 1, pitch: 64, cents: -20, velocity: 90, voice: 1 },
+    ];
+    const t = readWithMidiFile(notesToSmf(chord, { tempoBpm: 120, pitchBend: true })).tracks[1];
+    const bends = t.filter((e) => e.type === "pitchBend");
+    expect(bends).toHaveLength(1);
+    expect(bends[0].value).toBe(Math.round((-5 / 200) * 8192));
+    expect(t.findIndex((e) => e.type === "pitchBend")).toBeLessThan(t.findIndex((e) => e.type === "noteOn"));
+  });
+
   it("refuses options out of range", () => {
     expect(() => notesToSmf([], { ticksPerQuarter: 0 })).toThrow(RangeError);
     expect(() => notesToSmf([], { timeSignature: [4, 3] })).toThrow(RangeError);

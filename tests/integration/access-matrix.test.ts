@@ -108,6 +108,10 @@ const OPS: Record<string, Op> = {
     path: async () => `/api/v1/takes/${await takeWithNotes()}/notes`,
     body: () => ({ baseRevision: 1, notes: [{ onsetSec: 0, offsetSec: 0.5, pitch: 61, cents: 0, velocity: 80, voice: 1 }] }),
   },
+  "export CSV": { method: "GET", path: async () => `/api/v1/takes/${await takeWithNotes()}/export?format=csv` },
+  "export MIDI": { method: "GET", path: async () => `/api/v1/takes/${await takeWithNotes()}/export?format=midi` },
+  "read credits": { method: "GET", path: () => "/api/v1/credits" },
+  "buy export pack": { method: "POST", path: () => "/api/v1/billing/checkout", body: () => ({ pack: "no-such-pack" }) },
   "list API keys": { method: "GET", path: () => "/api/v1/api-keys" },
   "create API key": { method: "POST", path: () => "/api/v1/api-keys", body: () => ({ name: `Script ${++seq}`, role: "listener" }) },
   "revoke API key": { method: "DELETE", path: async () => `/api/v1/api-keys/${await newApiKey()}` },
@@ -141,13 +145,18 @@ const MATRIX: Record<keyof typeof OPS, Record<Principal, number>> = {
   "cancel analysis":    { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
   "read notes":         { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
   "save notes":         { signedOut: 401, outsider: 404, listener: 403, editor: 201, owner: 201 },
+  "export CSV":         { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
+  "export MIDI":        { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
+  "read credits":       { signedOut: 401, outsider: 200, listener: 200, editor: 200, owner: 200 },
+  // an invalid pack, so the owner's cell is the validation (422) and no payment is started
+  "buy export pack":    { signedOut: 401, outsider: 422, listener: 403, editor: 403, owner: 422 },
   "list API keys":      { signedOut: 401, outsider: 200, listener: 403, editor: 200, owner: 200 },
   "create API key":     { signedOut: 401, outsider: 201, listener: 403, editor: 201, owner: 201 },
   "revoke API key":     { signedOut: 401, outsider: 404, listener: 403, editor: 204, owner: 204 },
 };
 
 beforeAll(async () => {
-  app = await startTestApp();
+  app = await startTestApp({ FREE_MONTHLY_EXPORTS: "1000" });
   cookies.owner = await signUpVerified("owner@matrix.test", "Rosa Quint");
   const studio = await (await call("GET", "/api/v1/studio", { cookie: cookies.owner })).json();
   studioId = studio.studio.id;

@@ -43,6 +43,7 @@ const routes: [RegExp, string[], () => Promise<RouteModule>][] = [
   [/^\/api\/v1\/api-keys\/([^/]+)$/, ["keyId"], () => import("@/app/api/v1/api-keys/[keyId]/route") as Promise<RouteModule>],
   [/^\/api\/v1\/limits$/, [], () => import("@/app/api/v1/limits/route") as Promise<RouteModule>],
   [/^\/api\/v1\/openapi\.json$/, [], () => import("@/app/api/v1/openapi.json/route") as Promise<RouteModule>],
+  [/^\/api\/v1\/takes\/([^/]+)\/export$/, ["takeId"], () => import("@/app/api/v1/takes/[takeId]/export/route") as Promise<RouteModule>],
   [/^\/api\/v1\/credits$/, [], () => import("@/app/api/v1/credits/route") as Promise<RouteModule>],
   [/^\/api\/v1\/billing\/checkout$/, [], () => import("@/app/api/v1/billing/checkout/route") as Promise<RouteModule>],
   [/^\/api\/stripe\/webhook$/, [], () => import("@/app/api/stripe/webhook/route") as Promise<RouteModule>],

@@ -63,6 +63,7 @@ const id = (name: string) => z.object({ [name]: z.string() });
 const ERROR_TEXT: Record<number, string> = {
   400: "Malformed request",
   401: "Not signed in, or the API key is not valid",
+  402: "No export credits left (code no_credits)",
   403: "The caller's role does not allow this",
   404: "Not found in the caller's studio",
   409: "Conflicts with the current state",
@@ -96,6 +97,15 @@ const OPS: Op[] = [
   { method: "post", path: "/api/v1/analyses/{analysisId}/cancel", summary: "Cancel a queued or running analysis", ok: { status: 200, schema: z.object({ analysis: analysisDto }) }, errors: [401, 403, 404, 409] },
   { method: "get", path: "/api/v1/takes/{takeId}/notes", summary: "The take's notes: the latest revision, else the latest ready draft", ok: { status: 200, schema: notesDto }, errors: [400, 401, 404] },
   { method: "put", path: "/api/v1/takes/{takeId}/notes", summary: "Save corrected notes as the next revision", body: putNotesSchema, ok: { status: 201, schema: z.object({ revision: z.object({ number: z.number().int(), noteCount: z.number().int(), createdAt: z.string() }) }) }, errors: [401, 403, 404, 409, 422] },
+  {
+    method: "get",
+    path: "/api/v1/takes/{takeId}/export",
+    summary: "Export the notes as MIDI, MusicXML or CSV (query: format, revision, pitchBend=1, quantize=1/16, tempo, timeSignature); MIDI and MusicXML use one export credit",
+    ok: { status: 200, description: "the file" },
+    errors: [401, 402, 403, 404, 422],
+  },
+  { method: "get", path: "/api/v1/credits", summary: "Export credits: balance (allowance left included), purchases, ledger", ok: { status: 200 }, errors: [401] },
+  { method: "post", path: "/api/v1/billing/checkout", summary: "Start buying an export pack (owners): returns the checkout URL", body: z.object({ pack: z.enum(["pack25", "pack100"]) }), ok: { status: 200, schema: z.object({ url: z.string() }) }, errors: [401, 403, 422] },
   { method: "get", path: "/api/v1/studio", summary: "The active studio and the caller's role", ok: { status: 200 }, errors: [401] },
   { method: "patch", path: "/api/v1/studio", summary: "Rename the studio", body: studioNameSchema, ok: { status: 200 }, errors: [401, 403, 422] },
   { method: "get", path: "/api/v1/members", summary: "List members", ok: { status: 200, schema: z.object({ members: z.array(memberDto) }) }, errors: [401] },

@@ -151,10 +151,10 @@ export function ReanalyseForm({ takeId, initial, onStarted }: { takeId: string; 
         <Field label="Voice limit" htmlFor="s-voices" error={err("voiceLimit")} hint="Most notes sounding at once, 1 to 16.">
           <Input name="voiceLimit" inputMode="numeric" defaultValue={initial.voiceLimit} className="font-mono" />
         </Field>
-        <Field label="Shortest note (ms)" htmlFor="s-shortest" error={err("shortestNoteMs")} hint="10 to 2000; shorter notes are dropped.">
+        <Field label="Shortest note (ms)" htmlFor="s-shortest" error={err("shortestNoteMs")} hint="10 to 2000; shorter ones are dropped.">
           <Input name="shortestNoteMs" inputMode="decimal" defaultValue={initial.shortestNoteMs} className="font-mono" />
         </Field>
-        <Field label="Sensitivity (dB)" htmlFor="s-sensitivity" error={err("sensitivityDb")} hint="6 to 80: how far below the loudest pitch a voice still counts.">
+        <Field label="Sensitivity (dB)" htmlFor="s-sensitivity" error={err("sensitivityDb")} hint="6 to 80 dB below the loudest pitch.">
           <Input name="sensitivityDb" inputMode="decimal" defaultValue={initial.sensitivityDb} className="font-mono" />
         </Field>
       </div>

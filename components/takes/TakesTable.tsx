@@ -71,7 +71,7 @@ export function TakesTable({ projectId, canEdit }: { projectId: string; canEdit:
           sortFn: "datetime",
           cell: (c) => <Mono>{dateTimeFormat.format(c.getValue())}</Mono>,
         }),
-        col.display({
+        ...(canEdit ? [col.display({
           id: "actions",
           header: () => <span className="sr-only">Actions</span>,
           cell: ({ row }) =>
@@ -90,7 +90,7 @@ export function TakesTable({ projectId, canEdit }: { projectId: string; canEdit:
                 </Button>
               </div>
             ) : null,
-        }),
+        })] : []),
       ]),
     [canEdit, projectId],
   );

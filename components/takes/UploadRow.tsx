@@ -88,7 +88,7 @@ export function UploadRow({
           <Link href={`/projects/${projectId}/takes/${item.take.id}`} className="font-medium text-ink underline underline-offset-2">
             {item.take.name}
           </Link>
-          ; its analysis is queued.
+          . Its analysis is shown in the takes below.
         </p>
       ) : null}
     </li>

@@ -140,7 +140,7 @@ export function TakeView({
 
       {canEdit ? (
         <Card title="Re-analyse" description="Run the engine again with other settings. The earlier analyses are kept.">
-          <ReanalyseForm key={analysis?.id ?? "none"} takeId={t.id} initial={initialSettings} />
+          <ReanalyseForm takeId={t.id} initial={initialSettings} />
         </Card>
       ) : null}
 

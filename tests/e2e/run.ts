@@ -197,6 +197,31 @@ const failures = await runSteps([
     await page.locator("#s-hop-error").scrollIntoViewIfNeeded();
     await shot(page, "13-reanalyse-errors");
   }],
+  ["re-analyse with another taper and reference pitch; the earlier analysis is kept", async () => {
+    await page.fill("#s-hop", "10");
+    await page.selectOption("#s-taper", "blackman-harris");
+    await page.selectOption("#s-reference", "442");
+    await page.getByRole("button", { name: "Re-analyse" }).click();
+    const outcome = page.getByText("A new analysis is queued").or(page.locator('form[aria-label="Re-analyse with other settings"] [role="alert"]'));
+    await outcome.first().waitFor();
+    assert.match(await outcome.first().textContent() ?? "", /A new analysis is queued/);
+    const analyses = page.getByRole("table", { name: "Analyses of this take" });
+    await analyses.locator("tbody tr").nth(1).waitFor();
+    await page.locator('[data-testid="analysis-status"][data-state="ready"]', { hasText: "Blackman–Harris" }).waitFor({ timeout: 120_000 });
+    await page.getByText("A4 = 442.0 Hz").waitFor();
+    assert.equal(await analyses.locator("tbody tr").count(), 2);
+    await shot(page, "14-reanalysed");
+  }],
+  ["delete the take for good from its page", async () => {
+    await page.getByRole("button", { name: "Delete take" }).click();
+    await page.getByText("will be deleted for good").waitFor();
+    await page.waitForTimeout(300); // let the dialog finish fading in
+    await shot(page, "15-delete-take");
+    await page.getByRole("button", { name: "Delete for good" }).click();
+    await page.waitForURL((url) => /\/projects\/[^/]+$/.test(url.pathname));
+    await page.getByRole("table", { name: "Takes in this project" }).getByRole("link", { name: "g3-b3-stereo" }).waitFor();
+    assert.equal(await page.getByRole("link", { name: "triad-c-major" }).count(), 0);
+  }],
   ["an API key is shown once", async () => {
     await page.getByRole("link", { name: "API keys" }).click();
     await page.getByRole("heading", { name: "API keys" }).waitFor();
@@ -208,11 +233,11 @@ const failures = await runSteps([
     const key = await page.getByTestId("new-api-key").inputValue();
     await page.waitForTimeout(300); // let the dialog finish fading in
     assert.match(key, /^tn_/);
-    await shot(page, "14-api-key-once");
+    await shot(page, "16-api-key-once");
     await page.getByRole("button", { name: "I have saved the key" }).click();
     await page.getByRole("row", { name: /Nightly export script/ }).waitFor();
     assert.ok(!(await page.textContent("body"))?.includes(key), "the key is not shown again");
-    await shot(page, "15-api-keys");
+    await shot(page, "17-api-keys");
   }],
   ["a listener sees the takes without upload or delete", async () => {
     await page.getByRole("button", { name: "Sign out" }).first().click();
@@ -222,10 +247,10 @@ const failures = await runSteps([
     await page.getByRole("button", { name: "Sign in" }).click();
     await page.waitForURL(/\/projects/);
     await page.getByRole("link", { name: "Grade 3 chord exercises" }).click();
-    await page.getByRole("table", { name: "Takes in this project" }).getByRole("link", { name: "triad-c-major" }).waitFor();
+    await page.getByRole("table", { name: "Takes in this project" }).getByRole("link", { name: "g3-b3-stereo" }).waitFor();
     assert.equal(await page.getByRole("heading", { name: "Upload takes" }).count(), 0);
     assert.equal(await page.getByRole("button", { name: /^Delete/ }).count(), 0);
-    await shot(page, "16-listener-project");
+    await shot(page, "18-listener-project");
   }],
   ["no CSP violations or page errors", async () => {
     assert.deepEqual(errors.filter((e) => !/favicon/.test(e)), []);

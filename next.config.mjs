@@ -19,6 +19,15 @@ const nextConfig = {
     "nodemailer",
     "@alexanderolsen/libsamplerate-js",
     "@wasm-audio-decoders/flac",
+    "@echogarden/speex-resampler-wasm",
+    // UMD/CommonJS packages the engine and the export writers import as default exports
+    "wavefile",
+    "@tonejs/midi",
+    "midi-file",
+    "fft.js",
+    "meyda",
+    "xmlbuilder2",
+    "fast-xml-parser",
   ],
   async headers() {
     return [

@@ -3,7 +3,7 @@
  *   npm run transcribe -- IN.wav --json OUT.json [--midi OUT.mid] [options]
  */
 import { readFileSync, writeFileSync } from "node:fs";
-import { decodeAudio, transcribe, notesToMidi, EngineError, TAPER_NAMES, type SettingsInput } from "../lib/engine/index";
+import { decodeAudio, transcribe, notesToMidi, EngineError, TAPER_NAMES, ANALYSIS_RATE_HZ, type SettingsInput } from "../lib/engine/index";
 
 const HELP = `usage: npm run transcribe -- IN.(wav|flac) --json OUT.json [options]
 
@@ -99,7 +99,8 @@ async function main(argv: string[]): Promise<number> {
   } catch (e) {
     throw new EngineError("bad_argument", `cannot read ${input}: ${(e as NodeJS.ErrnoException).code ?? "error"}`);
   }
-  const audio = await decodeAudio(bytes, { maxDurationSec: maxSec });
+  // decode straight to the analysis rate: the full-rate mix is never held in memory
+  const audio = await decodeAudio(bytes, { maxDurationSec: maxSec, resampleToHz: ANALYSIS_RATE_HZ });
   bytes = new Uint8Array(0);
   let lastPct = -1;
   const result = await transcribe(audio.samples, audio.sampleRateHz, s, (f) => {
@@ -110,6 +111,8 @@ async function main(argv: string[]): Promise<number> {
     }
   });
   if (!quiet) process.stderr.write(`\ranalysing 100%: ${result.notes.length} notes, A4 ≈ ${result.referenceHz} Hz\n`);
+  // report the file's own rate, not the analysis rate it was decoded to
+  result.sampleRateHz = audio.sourceRateHz;
   if (jsonOut) writeFileSync(jsonOut, JSON.stringify(result) + "\n");
   if (midiOut) writeFileSync(midiOut, notesToMidi(result.notes, { pitchBend: bend }));
   if (stats) {

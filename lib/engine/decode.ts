@@ -1,18 +1,26 @@
 import wf from "wavefile";
 import { FLACDecoder } from "@wasm-audio-decoders/flac";
 import { EngineError } from "./errors";
+import { StreamResampler, resample } from "./resample";
 
 const { WaveFile } = wf;
 
 export interface DecodeOptions {
   /** Longest take accepted (s); longer input raises EngineError("too_long"). Default 3600. */
   maxDurationSec?: number;
+  /**
+   * Resample to this rate while decoding (block by block, so the full-rate mix never exists;
+   * the command line uses it to keep memory low). `sampleRateHz` of the result is then this rate.
+   */
+  resampleToHz?: number;
 }
 
 export interface DecodedAudio {
   /** Mono mix (mean of the channels), full scale ±1. */
   samples: Float32Array;
   sampleRateHz: number;
+  /** Sample rate of the file. */
+  sourceRateHz: number;
   /** Channels in the file (before the mix). */
   channels: number;
   durationSec: number;
@@ -32,8 +40,8 @@ export async function decodeAudio(bytes: Uint8Array, opts: DecodeOptions = {}): 
   const maxSec = opts.maxDurationSec ?? DEFAULT_MAX_SEC;
   if (bytes.length < 4) throw new EngineError(bytes.length === 0 ? "empty" : "not_audio", bytes.length === 0 ? "the file is empty" : "not an audio file (too short to be WAV or FLAC)");
   const tag = String.fromCharCode(bytes[0], bytes[1], bytes[2], bytes[3]);
-  if (tag === "RIFF" || tag === "RIFX" || tag === "RF64") return decodeWav(bytes, maxSec);
-  if (tag === "fLaC") return decodeFlac(bytes, maxSec);
+  if (tag === "RIFF" || tag === "RIFX" || tag === "RF64") return decodeWav(bytes, maxSec, opts.resampleToHz);
+  if (tag === "fLaC") return decodeFlac(bytes, maxSec, opts.resampleToHz);
   throw new EngineError("not_audio", "not a WAV or FLAC file");
 }
 
@@ -43,7 +51,7 @@ function checkLength(frames: number, sampleRateHz: number, maxSec: number): void
     throw new EngineError("too_long", `the take is ${(frames / sampleRateHz).toFixed(0)} s long; the limit is ${maxSec} s`);
 }
 
-function decodeWav(bytes: Uint8Array, maxSec: number): DecodedAudio {
+async function decodeWav(bytes: Uint8Array, maxSec: number, toHz?: number): Promise<DecodedAudio> {
   if (bytes.length < 44) throw new EngineError("truncated", "the WAV header is truncated");
   const wav = new WaveFile();
   try {
@@ -78,31 +86,36 @@ function decodeWav(bytes: Uint8Array, maxSec: number): DecodedAudio {
   checkLength(frames, sampleRateHz, maxSec);
   const dv = new DataView(bytes.buffer, bytes.byteOffset + start, frames * frameBytes);
   const le = wav.container !== "RIFX";
-  const out = new Float32Array(frames);
   const inv = 1 / channels;
-  let bad = false;
-  for (let c = 0; c < channels; c++) {
-    let pos = c * bytesPer;
-    for (let i = 0; i < frames; i++, pos += frameBytes) {
-      let v: number;
-      if (isFloat) {
-        v = bits === 32 ? dv.getFloat32(pos, le) : dv.getFloat64(pos, le);
-      } else if (bits === 16) v = dv.getInt16(pos, le) / 32768;
-      else if (bits === 8) v = (dv.getUint8(pos) - 128) / 128;
-      else if (bits === 24) {
-        const b0 = dv.getUint8(pos), b1 = dv.getUint8(pos + 1), b2 = dv.getUint8(pos + 2);
-        let x = le ? b0 | (b1 << 8) | (b2 << 16) : b2 | (b1 << 8) | (b0 << 16);
-        if (x & 0x800000) x -= 0x1000000;
-        v = x / 8388608;
-      } else v = dv.getInt32(pos, le) / 2147483648;
-      out[i] += v * inv;
+  const BLOCK = 1 << 16;
+  const block = new Float32Array(Math.min(BLOCK, frames));
+  const resampler = toHz && toHz !== sampleRateHz ? await StreamResampler.create(sampleRateHz, toHz, frames) : null;
+  const full = resampler ? null : new Float32Array(frames);
+  for (let f0 = 0; f0 < frames; f0 += BLOCK) {
+    const nb = Math.min(BLOCK, frames - f0);
+    const out = full ? full.subarray(f0, f0 + nb) : block.subarray(0, nb);
+    if (!full) out.fill(0);
+    for (let c = 0; c < channels; c++) {
+      let pos = f0 * frameBytes + c * bytesPer;
+      if (isFloat && bits === 32) for (let i = 0; i < nb; i++, pos += frameBytes) out[i] += dv.getFloat32(pos, le) * inv;
+      else if (isFloat) for (let i = 0; i < nb; i++, pos += frameBytes) out[i] += dv.getFloat64(pos, le) * inv;
+      else if (bits === 16) for (let i = 0; i < nb; i++, pos += frameBytes) out[i] += dv.getInt16(pos, le) * (inv / 32768);
+      else if (bits === 8) for (let i = 0; i < nb; i++, pos += frameBytes) out[i] += (dv.getUint8(pos) - 128) * (inv / 128);
+      else if (bits === 24)
+        for (let i = 0; i < nb; i++, pos += frameBytes) {
+          const b0 = dv.getUint8(pos), b1 = dv.getUint8(pos + 1), b2 = dv.getUint8(pos + 2);
+          let x = le ? b0 | (b1 << 8) | (b2 << 16) : b2 | (b1 << 8) | (b0 << 16);
+          if (x & 0x800000) x -= 0x1000000;
+          out[i] += x * (inv / 8388608);
+        }
+      else for (let i = 0; i < nb; i++, pos += frameBytes) out[i] += dv.getInt32(pos, le) * (inv / 2147483648);
     }
+    if (isFloat) for (let i = 0; i < nb; i++) if (!Number.isFinite(out[i])) throw new EngineError("bad_samples", "the WAV file contains NaN or infinite samples");
+    resampler?.push(out);
   }
-  if (isFloat) {
-    for (let i = 0; i < frames; i++) if (!Number.isFinite(out[i])) { bad = true; break; }
-    if (bad) throw new EngineError("bad_samples", "the WAV file contains NaN or infinite samples");
-  }
-  return { samples: out, sampleRateHz, channels, durationSec: frames / sampleRateHz, format: "wav" };
+  const samples = resampler ? resampler.finish() : (full as Float32Array);
+  const rate = resampler ? (toHz as number) : sampleRateHz;
+  return { samples, sampleRateHz: rate, sourceRateHz: sampleRateHz, channels, durationSec: frames / sampleRateHz, format: "wav" };
 }
 
 /** Walk the RIFF chunk list (each step advances ≥ 8 bytes, so it ends) to the "data" chunk. */
@@ -118,7 +131,7 @@ function findDataChunk(bytes: Uint8Array, bigEndian: boolean): { start: number; 
   return null;
 }
 
-async function decodeFlac(bytes: Uint8Array, maxSec: number): Promise<DecodedAudio> {
+async function decodeFlac(bytes: Uint8Array, maxSec: number, toHz?: number): Promise<DecodedAudio> {
   if (bytes.length < 42) throw new EngineError("truncated", "the FLAC header is truncated");
   // STREAMINFO (mandatory first metadata block): 4-byte block header, then 34 bytes
   const blockType = bytes[4] & 0x7f;
@@ -155,7 +168,8 @@ async function decodeFlac(bytes: Uint8Array, maxSec: number): Promise<DecodedAud
   for (const ch of chans) for (let i = 0; i < frames; i++) out[i] += ch[i] * inv;
   for (let i = 0; i < frames; i++) if (!Number.isFinite(out[i])) throw new EngineError("bad_samples", "the FLAC file decodes to non-finite samples");
   const sr = res.sampleRate || sampleRateHz;
-  return { samples: out, sampleRateHz: sr, channels: chans.length, durationSec: frames / sr, format: "flac" };
+  const samples = toHz && toHz !== sr ? await resample(out, sr, toHz) : out;
+  return { samples, sampleRateHz: toHz || sr, sourceRateHz: sr, channels: chans.length, durationSec: frames / sr, format: "flac" };
 }
 
 /**

@@ -61,6 +61,7 @@ export class MultiPitchEstimator {
   private nMatched = 0;
   private readonly matchedAmp: Float32Array;
   private readonly done: Uint8Array;
+  private readonly order: Uint8Array;
   /** Candidates detected in the previous frame (hysteresis). */
   private readonly prev: Uint8Array;
   private readonly cur: Uint8Array;
@@ -90,6 +91,7 @@ export class MultiPitchEstimator {
     this.matched = new Int32Array(HCANCEL);
     this.matchedAmp = new Float32Array(HCANCEL);
     this.done = new Uint8Array(this.nCand);
+    this.order = new Uint8Array(this.nCand);
     this.prev = new Uint8Array(this.nCand);
     this.cur = new Uint8Array(this.nCand);
   }
@@ -159,36 +161,36 @@ export class MultiPitchEstimator {
     while (count < voiceLimit) {
       let bestC = -1;
       let bestS = 0;
-      for (let c = 0; c < nC; c++) {
-        if (this.done[c]) continue;
-        let s = 0;
-        let parts = 0;
-        const base = c * H;
-        // the candidate's own series: anchored on its fundamental (or 2nd/3rd partial), then
-        // every partial within a narrow window, so two voices in one semitone window never merge
-        const f0a = this.anchorOf(c, n, freqHz);
-        if (f0a > 0) {
-          const m0 = 69 + 12 * Math.log2(f0a / 440);
-          for (let h = 0; h < H; h++) {
-            const w = this.weight[base + h];
-            if (w === 0) break;
-            const k = this.bestIn(m0 + LOG2H[h], TOL_SEMIS[h], n);
-            if (k >= 0) {
-              s += w * rc[k];
-              parts++;
-            }
+      if (count === 0) {
+        for (let c = 0; c < nC; c++) {
+          const s = this.salienceOf(c, n, freqHz, count, outF0Hz, outOffset);
+          this.sal[c] = s;
+          if (s > bestS) {
+            bestS = s;
+            bestC = c;
           }
         }
-        // a lone peak is weak evidence for a harmonic sound wherever its 2nd partial could show
-        if (parts < 2 && this.weight[base + 1] > 0) s *= this.cfg.lonePenalty;
-        // a fundamental below a detected voice, at 1/2, 1/3 or 1/4 of it, must show its own
-        // fundamental, else it is only that voice's partials seen again
-        if (count > 0 && this.isSubharmonic(c, count, outF0Hz, outOffset) && !(this.bestIn(this.centre[base], 0.5, n) >= 0)) s *= this.cfg.subPenalty;
-        if (this.prev[c]) s *= this.cfg.continuityBonus;
-        this.sal[c] = s;
-        if (s > bestS) {
-          bestS = s;
-          bestC = c;
+      } else {
+        // lazy greedy: residuals only shrink, so a candidate's last salience bounds its next
+        // one; re-evaluate the highest bound until no remaining bound can beat the best found
+        const sal = this.sal;
+        const seen = this.order;
+        seen.fill(0);
+        for (;;) {
+          let c = -1;
+          let ub = bestS;
+          for (let j = 0; j < nC; j++) if (!seen[j] && !this.done[j] && sal[j] > ub) {
+            ub = sal[j];
+            c = j;
+          }
+          if (c < 0) break;
+          seen[c] = 1;
+          const s = this.salienceOf(c, n, freqHz, count, outF0Hz, outOffset);
+          sal[c] = s;
+          if (s > bestS) {
+            bestS = s;
+            bestC = c;
+          }
         }
       }
       if (bestC < 0 || bestS <= 0) break;
@@ -234,6 +236,37 @@ export class MultiPitchEstimator {
     }
     this.prev.set(this.cur);
     return this.dropOctaveShadows(freqHz, amp, n, outF0Hz, outLevel, outSalience, outOffset, count);
+  }
+
+  /** Salience of candidate c on the current residual (see the class comment). */
+  private salienceOf(c: number, n: number, freqHz: Float32Array, count: number, outF0Hz: Float32Array, outOffset: number): number {
+    const H = this.H;
+    const rc = this.residC;
+    let s = 0;
+    let parts = 0;
+    const base = c * H;
+    // the candidate's own series: anchored on its fundamental (or 2nd/3rd partial), then
+    // every partial within a narrow window, so two voices in one semitone window never merge
+    const f0a = this.anchorOf(c, n, freqHz);
+    if (f0a > 0) {
+      const m0 = 69 + 12 * Math.log2(f0a / 440);
+      for (let h = 0; h < H; h++) {
+        const w = this.weight[base + h];
+        if (w === 0) break;
+        const k = this.bestIn(m0 + LOG2H[h], TOL_SEMIS[h], n);
+        if (k >= 0) {
+          s += w * rc[k];
+          parts++;
+        }
+      }
+    }
+    // a lone peak is weak evidence for a harmonic sound wherever its 2nd partial could show
+    if (parts < 2 && this.weight[base + 1] > 0) s *= this.cfg.lonePenalty;
+    // a fundamental below a detected voice, at 1/2, 1/3 or 1/4 of it, must show its own
+    // fundamental, else it is only that voice's partials seen again
+    if (count > 0 && this.isSubharmonic(c, count, outF0Hz, outOffset) && !(this.bestIn(this.centre[base], 0.5, n) >= 0)) s *= this.cfg.subPenalty;
+    if (this.prev[c]) s *= this.cfg.continuityBonus;
+    return s;
   }
 
   /**

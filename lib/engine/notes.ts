@@ -123,8 +123,14 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     let peak = 0;
     for (const l of tr.l) if (l > peak) peak = l;
     if (peak < minLevel || tr.t.length < 2) continue;
+    if ((tr.t[tr.t.length - 1] - tr.t[0] + 1) * hop < cfg.shortestNoteSec) continue;
     const fTrack = median(tr.f);
-    const env = (t: number) => (store ? store.harmonicLevelDb(t, fTrack) : -200);
+    // the track's own partial level per frame, computed once over the span searched
+    const envFrom = Math.max(0, tr.t[0] - 40);
+    const envTo = Math.min(det.frames - 1, tr.t[tr.t.length - 1] + 8);
+    const envDb = new Float32Array(envTo - envFrom + 1).fill(-200);
+    if (store) for (let t = envFrom; t <= envTo; t++) envDb[t - envFrom] = store.harmonicLevelDb(t, fTrack);
+    const env = (t: number) => (t >= envFrom && t <= envTo ? envDb[t - envFrom] : -200);
     for (const seg of splitTrack(tr, onsetFrames, riseDb, store ? env : null, odf, splitOdf)) {
       const t0 = tr.t[seg[0]];
       const t1 = tr.t[seg[1] - 1];
@@ -207,13 +213,14 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
  */
 function mergeFragments(notes: TrackedNote[], cents: number): TrackedNote[] {
   const out: TrackedNote[] = [];
+  const outF: number[] = [];
   for (const n of notes) {
     const f = median(n.f0Hz);
     let joined = false;
     for (let i = out.length - 1; i >= 0 && !joined; i--) {
       const p = out[i];
       if (n.onsetSec - p.offsetSec > 0.15) continue;
-      if (Math.abs(1200 * Math.log2(f / median(p.f0Hz))) > cents) continue;
+      if (Math.abs(1200 * Math.log2(f / outF[i])) > cents) continue;
       if (n.onsetSec < p.offsetSec - 0.03 || !n.hasOnset) {
         out[i] = {
           hasOnset: p.hasOnset,
@@ -226,7 +233,10 @@ function mergeFragments(notes: TrackedNote[], cents: number): TrackedNote[] {
         joined = true;
       }
     }
-    if (!joined) out.push(n);
+    if (!joined) {
+      out.push(n);
+      outF.push(f);
+    }
   }
   return out.filter((n) => n.hasOnset || n.offsetSec - n.onsetSec >= 0.3).sort((a, b) => a.onsetSec - b.onsetSec);
 }

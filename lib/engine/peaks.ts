@@ -37,7 +37,7 @@ export class PeakScratch {
 
 /**
  * Append the peaks of `power` to outFreqHz / outAmp starting at index `offset`; returns the
- * new end index (at most outFreqHz.length). Peaks come out in increasing frequency.
+ * new end index (at most `end`, default outFreqHz.length). Peaks come out in increasing frequency.
  */
 export function findPeaks(
   power: Float32Array,
@@ -46,6 +46,7 @@ export function findPeaks(
   outFreqHz: Float32Array,
   outAmp: Float32Array,
   offset: number,
+  end: number = outFreqHz.length,
 ): number {
   const lo = Math.max(2, p.binLo);
   const hi = Math.min(power.length - 2, p.binHi);
@@ -61,7 +62,7 @@ export function findPeaks(
   pre[a0] = 0;
   for (let k = a0; k < a1; k++) pre[k + 1] = pre[k] + power[k];
   let n = offset;
-  const cap = outFreqHz.length;
+  const cap = Math.min(end, outFreqHz.length);
   for (let k = lo; k < hi && n < cap; k++) {
     const b = power[k];
     if (b < thr || b <= power[k - 1] || b <= power[k + 1] || b < power[k - 2] || b < power[k + 2]) continue;

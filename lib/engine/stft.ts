@@ -52,10 +52,11 @@ export class SpectrumPlan {
   }
 
   /**
-   * Analyse the frame centred on sample `centre` of `signal`; fills `this.power`
-   * (and `complexOut` when given, interleaved re/im for k = 0 … M/2).
+   * Analyse the frame centred on sample `centre` of `signal`; fills `this.power` for bins
+   * binLo … binHi − 1 (default all; others keep old values) and `complexOut` when given
+   * (interleaved re/im for k = 0 … M/2).
    */
-  analyse(signal: Float32Array, centre: number, complexOut?: Float64Array): Float32Array {
+  analyse(signal: Float32Array, centre: number, complexOut?: Float64Array, binLo = 0, binHi = this.bins): Float32Array {
     const N = this.frameLength;
     const start = centre - (N >> 1);
     const inp = this.input;
@@ -73,13 +74,13 @@ export class SpectrumPlan {
     const out = this.out;
     this.fft.realTransform(out, inp);
     const p = this.power;
-    const B = this.bins;
-    for (let k = 0; k < B; k++) {
+    const B = Math.min(this.bins, binHi);
+    for (let k = Math.max(0, binLo); k < B; k++) {
       const re = out[2 * k];
       const im = out[2 * k + 1];
       p[k] = re * re + im * im;
     }
-    if (complexOut) for (let i = 0; i < 2 * B; i++) complexOut[i] = out[i];
+    if (complexOut) for (let i = 0; i < 2 * this.bins; i++) complexOut[i] = out[i];
     return p;
   }
 }

@@ -50,7 +50,7 @@ const PEAKS_PER_REGISTER = 48;
 
 /**
  * Transcribe a mono take into notes.
- * samples: mono, full scale ±1, at sampleRateHz (explicit). Pipeline: resample (libsamplerate) →
+ * samples: mono, full scale ±1, at sampleRateHz (explicit). Pipeline: resample (SpeexDSP) →
  * per-register tapered spectra (fft.js) → peaks → concurrent pitches → notes → tuning.
  * onProgress receives 0 … 1.
  */
@@ -67,7 +67,13 @@ export async function transcribe(
   onProgress?.(0.05);
   const plan = registerPlan(settings);
   const signals: Float32Array[] = [];
-  for (const r of plan) signals.push(r.rateHz === ANALYSIS_RATE_HZ ? x16 : await resample(x16, ANALYSIS_RATE_HZ, r.rateHz));
+  // decimate step by step (16 → 4 → 2 kHz): each step filters at its own, lower rate
+  for (let i = plan.length - 1; i >= 0; i--) {
+    const r = plan[i];
+    const prevRate = i === plan.length - 1 ? ANALYSIS_RATE_HZ : plan[i + 1].rateHz;
+    const prevSig = i === plan.length - 1 ? x16 : signals[0];
+    signals.unshift(r.rateHz === prevRate ? prevSig : await resample(prevSig, prevRate, r.rateHz));
+  }
   onProgress?.(0.1);
   const tune = process.env.TN_TUNE ? JSON.parse(process.env.TN_TUNE) : {};
   const taperParams = { kaiserBeta: settings.kaiserBeta, gaussianAlpha: settings.gaussianAlpha };
@@ -89,7 +95,23 @@ export async function transcribe(
       floorHalfWidth: Math.max(4, Math.round((6 * nativeBinHz) / spec.binHz)),
       floorFactor: tune.floorFactor ?? 4,
     };
-    return { ...r, signal: signals[i], spec, peak, scratch: new PeakScratch(spec.bins), frameSec: N / r.rateHz };
+    // long frames move little in one hop: analyse them every other hop and reuse the peaks
+    const stride = r.frameMs >= 100 ? 2 : 1;
+    return {
+      ...r,
+      signal: signals[i],
+      spec,
+      peak,
+      scratch: new PeakScratch(spec.bins),
+      frameSec: N / r.rateHz,
+      stride,
+      // bins the peak picker (±floor window) and the onset function read
+      powerLo: Math.max(0, Math.min(peak.binLo - peak.floorHalfWidth - 2, i === 2 ? Math.floor(50 / spec.binHz) : Infinity)),
+      powerHi: Math.min(spec.bins, Math.max(peak.binHi + peak.floorHalfWidth + 3, i === 2 ? Math.ceil(6000 / spec.binHz) + 1 : 0)),
+      keptF: new Float32Array(PEAKS_PER_REGISTER),
+      keptA: new Float32Array(PEAKS_PER_REGISTER),
+      keptN: 0,
+    };
   });
   const hopSec = settings.hopMs / 1000;
   const frames = Math.floor(durationSec / hopSec) + 1;
@@ -124,15 +146,25 @@ export async function transcribe(
   for (let t = 0; t < frames; t++) {
     let n = 0;
     for (const r of regs) {
+      if (r.stride > 1 && t % r.stride !== 0) {
+        pf.set(r.keptF.subarray(0, r.keptN), n);
+        pa.set(r.keptA.subarray(0, r.keptN), n);
+        n += r.keptN;
+        continue;
+      }
       const centre = Math.round(t * hopSec * r.rateHz);
-      const power = r.spec.analyse(r.signal, centre);
+      const power = r.spec.analyse(r.signal, centre, undefined, r.powerLo, r.powerHi);
       const from = n;
-      n = findPeaks(power, r.peak, r.scratch, pf, pa, n);
+      n = findPeaks(power, r.peak, r.scratch, pf, pa, Math.min(n, maxPeaks), Math.min(maxPeaks, from + PEAKS_PER_REGISTER));
+      if (r.stride > 1) {
+        r.keptN = n - from;
+        r.keptF.set(pf.subarray(from, n));
+        r.keptA.set(pa.subarray(from, n));
+      }
       if (r === high) {
         odf[t] = flux.next(power);
         store.put(t, pf, pa, from, n);
       }
-      if (n > maxPeaks) n = maxPeaks;
     }
     det.count[t] = est.estimate(pf, pa, n, det.f0Hz, det.level, salience, t * V);
     if (onProgress && t % progressEvery === 0) onProgress(0.1 + (0.8 * t) / frames);

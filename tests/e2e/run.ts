@@ -1,6 +1,6 @@
 // `npm run test:e2e`: the browser tests, against the real app started by the run command.
 import assert from "node:assert/strict";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { copyFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import wf from "wavefile";
@@ -159,6 +159,24 @@ const failures = await runSteps([
     assert.ok(midway > 0 && midway < 100, `progress seen mid-way: ${midway}%`);
     assert.equal(await bar.getAttribute("aria-valuenow"), "100");
   }],
+  ["cancel an upload half-way: nothing is kept", async () => {
+    const cancelPath = path.join(filesDir, "cancel-me.wav");
+    copyFileSync(triadPath, cancelPath);
+    const cdp = await page.context().newCDPSession(page);
+    await cdp.send("Network.enable");
+    await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 40 * 1024 });
+    await page.getByLabel("Choose recordings to upload").setInputFiles([cancelPath]);
+    const row = page.locator('[data-testid="upload-row"]', { hasText: "cancel-me.wav" });
+    await row.and(page.locator('[data-status="uploading"]')).waitFor();
+    await row.getByRole("button", { name: /Cancel upload/ }).click();
+    await row.and(page.locator('[data-status="cancelled"]')).waitFor();
+    await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+    assert.match(await row.textContent() ?? "", /nothing was kept/);
+    const res = await page.request.get(`${app.baseUrl}/api/v1/projects/${page.url().split("/projects/")[1]}/takes`);
+    const { takes } = (await res.json()) as { takes: { name: string }[] };
+    assert.ok(!takes.some((t) => t.name === "cancel-me"), "the cancelled upload left no take");
+    await row.getByRole("button", { name: /Remove/ }).click();
+  }],
   ["the take becomes ready in the takes table", async () => {
     const takeRow = page.getByRole("row", { name: /triad-c-major/ });
     await takeRow.waitFor();
@@ -166,7 +184,18 @@ const failures = await runSteps([
     await shot(page, "11-take-ready");
   }],
   ["an OGG file is decoded in the browser and sent with its WAV rendering", async () => {
-    await page.getByLabel("Choose recordings to upload").setInputFiles([oggPath]);
+    // dropped on the drop zone, as a person drags it from their file manager
+    const dataTransfer = await page.evaluateHandle(
+      ({ base64, name }) => {
+        const bytes = Uint8Array.from(atob(base64), (c) => c.charCodeAt(0));
+        const transfer = new DataTransfer();
+        transfer.items.add(new File([bytes], name, { type: "audio/ogg" }));
+        return transfer;
+      },
+      { base64: readFileSync(oggPath).toString("base64"), name: "g3-b3-stereo.ogg" },
+    );
+    await page.getByTestId("drop-zone").dispatchEvent("dragover", { dataTransfer });
+    await page.getByTestId("drop-zone").dispatchEvent("drop", { dataTransfer });
     await page.locator('[data-testid="upload-row"][data-status="done"]', { hasText: "g3-b3-stereo.ogg" }).waitFor({ timeout: 30_000 });
     const takeRow = page.getByRole("row", { name: /g3-b3-stereo/ });
     await takeRow.getByText("ready").waitFor({ timeout: 120_000 });

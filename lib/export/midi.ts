@@ -1,7 +1,6 @@
 import m from "@tonejs/midi";
-import mf from "midi-file";
-import type { MidiEvent } from "midi-file";
 import { parseGrid, snapInterval } from "./grid";
+import { encodeVlq } from "./vlq";
 import { clampTempoBpm, estimateTempoBpm } from "./tempo";
 import { checkTimeSignature, DEFAULT_TIME_SIGNATURE, voicesOf, type ExportNote, type TimeSignature } from "./types";
 
@@ -72,11 +71,15 @@ export function bendToCents(bend: number, rangeSemitones: number): number {
  * `centsToBend(cents, range)` just before its note-on. Notes of one voice starting on the same tick
  * share the channel's bend: it carries their mean cents.
  *
- * @tonejs/midi 2.0.28 writes a pitch bend's `value` unchanged as 8192 + value, so it is given the
- * signed 14-bit integer (a fraction −1 … 1 would be written as the centre). It orders events that
- * share a tick as notes, then controllers by number, then bends; the file is therefore passed once
- * through midi-file (the reader and writer @tonejs/midi is built on) to put each tick's events in the
- * order a player needs: meta events, program change, RPN set-up, note-offs, pitch bend, note-ons.
+ * The file is built as a @tonejs/midi model (header tempo and time signature, tracks, notes, pitch
+ * bends in the model's −1 … 1 convention) and serialised here (`encodeSmf`) rather than with the
+ * model's own `toArray()`, which in @tonejs/midi 2.0.28 (through midi-file 1.2.4's writer):
+ * takes time quadratic in the file's length (each delta time of two or more bytes copies the whole
+ * buffer: 10 000 notes took 16 s); writes a bend's `value` as 8192 + value, so the model's own
+ * −1 … 1 values come out as the centre; and orders a tick's events as notes, then controllers by
+ * controller number, then bends, which puts a bend after its note-on and RPN 0 out of order.
+ * `encodeSmf` orders each tick's events as a player needs them: meta events, program change,
+ * RPN set-up, note-offs, pitch bend, note-ons.
  */
 export function notesToSmf(notes: readonly ExportNote[], opts: SmfOptions = {}): Uint8Array {
   return writeSmf(notes, opts).bytes;
@@ -98,8 +101,7 @@ export function writeSmf(notes: readonly ExportNote[], opts: SmfOptions = {}): {
 
   const midi = new Midi();
   midi.header.fromJSON({ ...midi.header.toJSON(), ppq, name: opts.title ?? "Tapernote" });
-  // @tonejs/midi writes floor(60e6 / bpm) µs; + 0.5 µs keeps the floor on the intended integer.
-  midi.header.tempos = [{ ticks: 0, bpm: 60e6 / (usPerQuarter + 0.5) }];
+  midi.header.tempos = [{ ticks: 0, bpm: 60e6 / usPerQuarter }];
   midi.header.timeSignatures = [{ ticks: 0, timeSignature: [timeSignature[0], timeSignature[1]] }];
   midi.header.update();
 
@@ -121,12 +123,13 @@ export function writeSmf(notes: readonly ExportNote[], opts: SmfOptions = {}): {
       for (const n of placed) byTick.set(n.on, [...(byTick.get(n.on) ?? []), n.cents]);
       for (const [tick, cents] of byTick) {
         const mean = cents.reduce((a, b) => a + b, 0) / cents.length;
-        track.addPitchBend({ ticks: tick, value: centsToBend(mean, range) });
+        // the model's convention (as its reader gives it): value = bend / 8192, −1 … 1
+        track.addPitchBend({ ticks: tick, value: centsToBend(mean, range) / 8192 });
       }
     }
   });
 
-  const bytes = reorder(midi.toArray(), opts.pitchBend ? range : null);
+  const bytes = encodeSmf(midi, opts.pitchBend ? range : null);
   return { bytes, layout: { tempoBpm: 60e6 / usPerQuarter, microsecondsPerQuarter: usPerQuarter, ticksPerQuarter: ppq, channels } };
 }
 
@@ -166,55 +169,85 @@ function placeNotes(voiceNotes: readonly ExportNote[], usPerQuarter: number, ppq
   return kept;
 }
 
-type Ev = MidiEvent & { channel?: number; running?: boolean };
+/** Rank of an event among those on the same tick: the order a player needs them in. */
+const RANK = { meta: 0, program: 1, controller: 2, noteOff: 3, pitchBend: 4, noteOn: 5 } as const;
 
-/** Rank of an event among those on the same tick. */
-function rank(e: Ev): number {
-  switch (e.type) {
-    case "programChange":
-      return 1;
-    case "controller":
-      return 2;
-    case "noteOff":
-      return 3;
-    case "pitchBend":
-      return 4;
-    case "noteOn":
-      return 5;
-    case "endOfTrack":
-      return 9;
-    default:
-      return 0; // meta events: names, tempo, time signature
-  }
+interface TimedEvent {
+  tick: number;
+  rank: number;
+  order: number;
+  bytes: number[];
 }
 
-function reorder(smf: Uint8Array, bendRange: number | null): Uint8Array {
-  const data = mf.parseMidi(smf);
-  data.tracks = data.tracks.map((track, index) => {
-    let tick = 0;
-    let timed = track.map((e: Ev, order) => {
-      tick += e.deltaTime;
-      delete e.running;
-      return { e, tick, order };
-    });
-    if (bendRange !== null && index > 0) {
-      const channel = timed.find((t) => "channel" in t.e)?.e.channel ?? 0;
-      const rpn: [number, number][] = [[101, 0], [100, 0], [6, bendRange], [38, 0], [101, 127], [100, 127]];
-      timed = timed.concat(
-        rpn.map(([controllerType, value], k) => ({
-          e: { deltaTime: 0, type: "controller", channel, controllerType, value } as Ev,
-          tick: 0,
-          order: -rpn.length + k,
-        })),
-      );
+const utf8 = new TextEncoder();
+
+function metaEvent(type: number, data: ArrayLike<number>): number[] {
+  return [0xff, type, ...encodeVlq(data.length), ...Array.from(data)];
+}
+
+/**
+ * Serialises the @tonejs/midi model as a Standard MIDI File (MIDI 1.0, "Standard MIDI Files 1.0"):
+ * MThd (format 1, track count, division), then one MTrk per track with delta times as
+ * variable-length quantities (vlq.ts), every status byte written (no running status), and each
+ * tick's events in RANK order; RPN 0 set-up at tick 0 of each voice track when `bendRange` is set.
+ */
+function encodeSmf(midi: InstanceType<typeof Midi>, bendRange: number | null): Uint8Array {
+  const tracks: TimedEvent[][] = [];
+  const header: TimedEvent[] = [];
+  let order = 0;
+  const push = (list: TimedEvent[], tick: number, rank: number, bytes: number[]) => list.push({ tick, rank, order: order++, bytes });
+
+  push(header, 0, RANK.meta, metaEvent(0x03, utf8.encode(midi.header.name)));
+  for (const t of midi.header.tempos) {
+    const us = Math.round(60e6 / t.bpm);
+    push(header, t.ticks, RANK.meta, metaEvent(0x51, [(us >> 16) & 0xff, (us >> 8) & 0xff, us & 0xff]));
+  }
+  for (const ts of midi.header.timeSignatures) {
+    const [num, den] = ts.timeSignature;
+    // clocks per metronome click: one beat of the denominator (24 MIDI clocks per quarter)
+    push(header, ts.ticks, RANK.meta, metaEvent(0x58, [num, Math.log2(den), Math.round((24 * 4) / den), 8]));
+  }
+  tracks.push(header);
+
+  for (const track of midi.tracks) {
+    const events: TimedEvent[] = [];
+    const ch = track.channel & 0x0f;
+    push(events, 0, RANK.meta, metaEvent(0x03, utf8.encode(track.name)));
+    push(events, 0, RANK.program, [0xc0 | ch, track.instrument.number & 0x7f]);
+    if (bendRange !== null) {
+      for (const [cc, value] of [[101, 0], [100, 0], [6, bendRange], [38, 0], [101, 127], [100, 127]]) push(events, 0, RANK.controller, [0xb0 | ch, cc, value]);
     }
-    timed.sort((a, b) => a.tick - b.tick || rank(a.e) - rank(b.e) || a.order - b.order);
+    for (const pb of track.pitchBends) {
+      const v = Math.max(-8192, Math.min(8191, Math.round(pb.value * 8192))) + 8192;
+      push(events, pb.ticks, RANK.pitchBend, [0xe0 | ch, v & 0x7f, (v >> 7) & 0x7f]);
+    }
+    for (const n of track.notes) {
+      const velocity = Math.max(1, Math.min(127, Math.round(n.velocity * 127)));
+      push(events, n.ticks, RANK.noteOn, [0x90 | ch, n.midi, velocity]);
+      push(events, n.ticks + n.durationTicks, RANK.noteOff, [0x80 | ch, n.midi, 0]);
+    }
+    tracks.push(events);
+  }
+
+  const out: number[] = [];
+  const u32 = (v: number) => out.push((v >>> 24) & 0xff, (v >>> 16) & 0xff, (v >>> 8) & 0xff, v & 0xff);
+  const ascii = (s: string) => out.push(...Array.from(s, (c) => c.charCodeAt(0)));
+  ascii("MThd");
+  u32(6);
+  out.push(0, 1, (tracks.length >> 8) & 0xff, tracks.length & 0xff, (midi.header.ppq >> 8) & 0x7f, midi.header.ppq & 0xff);
+  for (const events of tracks) {
+    events.sort((a, b) => a.tick - b.tick || a.rank - b.rank || a.order - b.order);
+    const body: number[] = [];
     let last = 0;
-    return timed.map(({ e, tick: t }) => {
-      e.deltaTime = t - last;
-      last = t;
-      return e;
-    });
-  });
-  return Uint8Array.from(mf.writeMidi(data, { running: false }));
+    for (const e of events) {
+      for (const b of encodeVlq(e.tick - last)) body.push(b);
+      for (const b of e.bytes) body.push(b);
+      last = e.tick;
+    }
+    body.push(0x00, 0xff, 0x2f, 0x00); // end of track
+    ascii("MTrk");
+    u32(body.length);
+    for (const b of body) out.push(b);
+  }
+  return Uint8Array.from(out);
 }

@@ -112,6 +112,7 @@ export function writeMusicXml(notes: readonly ExportNote[], opts: MusicXmlOption
     const layers = toLayers(toChords(mine));
     const meanPitch = mine.reduce((s, n) => s + n.pitch, 0) / mine.length;
     const part = score.ele("part", { id: `P${i + 1}` });
+    const next = layers.map(() => 0);
 
     for (let m = 0; m < measureCount; m++) {
       const mStart = m * measureDiv;
@@ -138,7 +139,10 @@ export function writeMusicXml(notes: readonly ExportNote[], opts: MusicXmlOption
 
       let written = 0;
       for (const [li, layer] of layers.entries()) {
-        const inMeasure = layer.filter((c) => c.startDiv < mEnd && c.endDiv > mStart);
+        // a layer's chords never overlap, so they are sorted by end too: walk them with a cursor
+        while (next[li] < layer.length && layer[next[li]].endDiv <= mStart) next[li]++;
+        const inMeasure: Chord[] = [];
+        for (let k = next[li]; k < layer.length && layer[k].startDiv < mEnd; k++) inMeasure.push(layer[k]);
         if (li > 0 && inMeasure.length === 0) continue;
         if (written > 0) measure.ele("backup").ele("duration").txt(String(measureDiv));
         written++;

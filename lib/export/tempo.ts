@@ -38,6 +38,7 @@ const KERNEL_SIGMA_OCT = 0.05;
 const HIST_STEP_OCT = 0.002;
 const REFINE_SPAN = 0.06;
 const REFINE_STEPS = 1200;
+const REFINE_EVENTS = 3000;
 
 /** Clamps a tempo to 40 … 240 bpm. */
 export function clampTempoBpm(bpm: number): number {
@@ -57,31 +58,36 @@ export function estimateTempoBpm(onsetsSec: ArrayLike<number>, opts: TempoEstima
   }
   if (logIoi.length < 2) return DEFAULT_TEMPO_BPM;
 
-  // 2. the histogram's highest peak
+  // 2. the histogram's highest peak (IOIs binned at 0.002 octave, then smoothed)
   const lo = Math.log2(IOI_MIN_SEC);
-  const hi = Math.log2(IOI_MAX_SEC);
-  let bestLog = logIoi[0];
+  const bins = Math.ceil((Math.log2(IOI_MAX_SEC) - lo) / HIST_STEP_OCT) + 1;
+  const counts = new Float64Array(bins);
+  for (const l of logIoi) counts[Math.round((l - lo) / HIST_STEP_OCT)]++;
+  const reach = Math.ceil((4 * KERNEL_SIGMA_OCT) / HIST_STEP_OCT);
+  const kernel = Float64Array.from({ length: 2 * reach + 1 }, (_, j) => Math.exp(-(((j - reach) * HIST_STEP_OCT) ** 2) / (2 * KERNEL_SIGMA_OCT ** 2)));
+  let bestBin = 0;
   let bestDensity = -1;
-  const twoSigma2 = 2 * KERNEL_SIGMA_OCT * KERNEL_SIGMA_OCT;
-  for (let x = lo; x <= hi; x += HIST_STEP_OCT) {
+  for (let b = 0; b < bins; b++) {
     let density = 0;
-    for (const l of logIoi) {
-      const d = x - l;
-      if (Math.abs(d) < 4 * KERNEL_SIGMA_OCT) density += Math.exp(-(d * d) / twoSigma2);
+    for (let j = -reach; j <= reach; j++) {
+      const c = counts[b + j];
+      if (c) density += c * kernel[j + reach];
     }
     if (density > bestDensity) {
       bestDensity = density;
-      bestLog = x;
+      bestBin = b;
     }
   }
-  const peakSec = 2 ** bestLog;
+  const peakSec = 2 ** (lo + bestBin * HIST_STEP_OCT);
 
-  // 3. phase-coherence refinement around the peak
+  // 3. phase-coherence refinement around the peak, on at most REFINE_EVENTS events spread over the take
+  const stride = Math.max(1, Math.ceil(events.length / REFINE_EVENTS));
+  const sample = events.filter((_, k) => k % stride === 0);
   let bestPeriod = peakSec;
   let bestScore = -1;
   for (let s = 0; s <= REFINE_STEPS; s++) {
     const period = peakSec * (1 - REFINE_SPAN + (2 * REFINE_SPAN * s) / REFINE_STEPS);
-    const score = coherence(events, period, 1) + coherence(events, period, 2);
+    const score = coherence(sample, period, 1) + coherence(sample, period, 2);
     if (score > bestScore) {
       bestScore = score;
       bestPeriod = period;

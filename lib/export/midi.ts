@@ -120,7 +120,11 @@ export function writeSmf(notes: readonly ExportNote[], opts: SmfOptions = {}): {
     }
     if (opts.pitchBend) {
       const byTick = new Map<number, number[]>();
-      for (const n of placed) byTick.set(n.on, [...(byTick.get(n.on) ?? []), n.cents]);
+      for (const n of placed) {
+        const list = byTick.get(n.on);
+        if (list) list.push(n.cents);
+        else byTick.set(n.on, [n.cents]);
+      }
       for (const [tick, cents] of byTick) {
         const mean = cents.reduce((a, b) => a + b, 0) / cents.length;
         // the model's convention (as its reader gives it): value = bend / 8192, −1 … 1

@@ -14,7 +14,8 @@
  *     the events on a grid of period P and P/2:
  *        S(P) = |Σₖ exp(2πi·tₖ/P)| + |Σₖ exp(4πi·tₖ/P)|
  *     (the magnitude of the mean resultant vector of circular statistics; P/2 keeps off-beat
- *     eighths from pulling the estimate). A long take pins P far closer than one IOI can.
+ *     eighths from pulling the estimate). A long take pins P far closer than one IOI can; at most
+ *     3000 events, evenly picked over the take, take part (keeps a 100 000-note take near 0.3 s).
  *  4. The tempo 60/P is folded by octaves (× or ÷ 2) into 40 … 240 bpm and rounded to 0.01 bpm.
  *
  * What it cannot know: a take played mostly in eighth notes reads as twice the written tempo

@@ -247,6 +247,15 @@ describe("MIDI options", () => {
     expect(t.findIndex((e) => e.type === "pitchBend")).toBeLessThan(t.findIndex((e) => e.type === "noteOn"));
   });
 
+  it("writes a long take in linear time (20 000 notes well under 5 s)", () => {
+    const notes = Array.from({ length: 20_000 }, (_, k) => ({ onsetSec: k * 0.3, offsetSec: k * 0.3 + 0.25, pitch: 40 + (k % 40), cents: (k % 21) - 10, velocity: 90, voice: 1 + (k % 4) }));
+    const started = performance.now();
+    const bytes = notesToSmf(notes, { tempoBpm: 100, pitchBend: true });
+    expect(performance.now() - started).toBeLessThan(5000);
+    const { tracks } = readWithMidiFile(bytes);
+    expect(tracks.slice(1).reduce((sum, t) => sum + notesOfTrack(t).length, 0)).toBe(20_000);
+  });
+
   it("refuses options out of range", () => {
     expect(() => notesToSmf([], { ticksPerQuarter: 0 })).toThrow(RangeError);
     expect(() => notesToSmf([], { timeSignature: [4, 3] })).toThrow(RangeError);

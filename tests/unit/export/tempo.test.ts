@@ -51,13 +51,13 @@ describe("tempo estimate from onsets", () => {
   });
 
   it("folds into 40 … 240 bpm", () => {
-    // whole notes at 30 bpm (8 s apart) are out of the IOI range; half notes at 30 bpm = 4 s
+    // onsets 4 s apart (15 bpm) fold twice, to 60 bpm; 0.1 s apart (600 bpm) fold twice, to 150
     const slow = Array.from({ length: 12 }, (_, k) => k * 4);
     const est = estimateTempoBpm(slow);
     expect(est).toBeGreaterThanOrEqual(TEMPO_MIN_BPM);
     expect(est).toBeLessThanOrEqual(TEMPO_MAX_BPM);
-    expect(Math.abs(est - 60) / 60).toBeLessThan(0.02); // 15 bpm folded twice
-    const fast = Array.from({ length: 64 }, (_, k) => k * 0.1); // 600 bpm
+    expect(Math.abs(est - 60) / 60).toBeLessThan(0.02);
+    const fast = Array.from({ length: 64 }, (_, k) => k * 0.1);
     expect(Math.abs(estimateTempoBpm(fast) - 150) / 150).toBeLessThan(0.02);
   });
 

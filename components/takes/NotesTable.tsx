@@ -44,7 +44,11 @@ export function NotesTable({ notes }: { notes: TakeNotesDto }) {
   }
   return (
     <div className="space-y-2">
-      <DataTable columns={columns} data={shown} getRowId={(r) => String(r.index)} caption="Notes of this take" initialSorting={[{ id: "onsetSec", desc: false }]} />
+      {/* a long take's list scrolls inside the card, so the analyses and settings below stay in reach;
+          `relative` keeps the visually hidden (absolutely placed) texts of the rows inside the scroller */}
+      <div className="relative max-h-[34rem] overflow-y-auto rounded-lg" tabIndex={0} aria-label="Notes, scrollable">
+        <DataTable columns={columns} data={shown} getRowId={(r) => String(r.index)} caption="Notes of this take" initialSorting={[{ id: "onsetSec", desc: false }]} />
+      </div>
       {rows.length > FIRST_ROWS ? (
         <div className="flex items-center justify-between text-sm text-ink-muted">
           <span>

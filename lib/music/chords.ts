@@ -9,7 +9,8 @@
  * Naming rule: the chord's pitch-class set must equal one template exactly (doubling and
  * octave placement do not matter). When several roots fit, the one equal to the bass wins
  * (so C–E–G–A over C is C6, over A it is Am7; a diminished-seventh or augmented chord, which
- * fits on every one of its notes, takes the bass as root and is never a slash chord);
+ * fits on every one of its notes, takes the bass as root and is never a slash chord; a power
+ * chord C5 is named only over its root — a bare fourth is unnamed);
  * otherwise the template listed first below wins.
  *
  * Root spelling (ASCII `#`/`b`, as chord charts and MusicXML `<root-alter>` text do): a
@@ -147,6 +148,7 @@ export function nameChord(pitches: readonly number[], bassPitch?: number): Chord
     if (template.intervals.length !== pcs.size) return;
     for (const rootPc of pcs) {
       if (!template.intervals.every((i) => pcs.has((rootPc + i) % 12))) continue;
+      if (template.quality === "power" && rootPc !== bassPc) continue; // a bare fourth is no chord
       const rank = (rootPc === bassPc ? 0 : 1000) + order;
       if (!best || rank < best.rank) best = { template, rootPc, rank };
     }
@@ -194,7 +196,7 @@ export interface ChordSegmentOptions {
   minNoteSec?: number;
   /**
    * Note boundaries closer than this are taken as one instant, so that voices that start a
-   * chord a few ms apart do not make slivers. Default 0.03 s.
+   * chord a few ms apart, or a legato line with small gaps, do not make slivers. Default 0.05 s.
    */
   boundaryToleranceSec?: number;
 }
@@ -210,7 +212,7 @@ export interface ChordSegmentOptions {
  */
 export function chordSegments(notes: readonly TimedNote[], options: ChordSegmentOptions = {}): ChordSegment[] {
   const minNoteSec = options.minNoteSec ?? 0.08;
-  const tol = options.boundaryToleranceSec ?? 0.03;
+  const tol = options.boundaryToleranceSec ?? 0.05;
   const kept: number[] = [];
   notes.forEach((n, i) => {
     if (n.offsetSec - n.onsetSec >= minNoteSec) kept.push(i);

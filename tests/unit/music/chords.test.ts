@@ -149,6 +149,7 @@ describe("nameChord symbols and spelling", () => {
   it("returns null for one pitch class and for unnamed sets", () => {
     expect(nameChord([60, 72, 84])).toBeNull();
     expect(nameChord([60, 61, 62])).toBeNull();
+    expect(nameChord([55, 60])).toBeNull(); // a bare fourth G–C
     expect(nameChord([])).toBeNull();
   });
 

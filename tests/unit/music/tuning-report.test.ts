@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { leastSquaresSlope, tuningReport, vibrato, type ReportInputNote } from "@/lib/music/tuning-report";
 import { ratioToCents } from "@/lib/music/intervals";
+import { readFileSync } from "node:fs";
+import { fileURLToPath } from "node:url";
 
 /** Deterministic noise (mulberry32), so the tests are repeatable. */
 function rng(seed: number) {
@@ -89,6 +91,19 @@ describe("tuningReport on a constructed chord with known detuning", () => {
     const r415 = tuningReport([note(69, 0, 1)], 415);
     expect(r415.referenceOffsetCents).toBeCloseTo(-101.3, 1); // REFERENCES.md §4
     expect(r415.notes[0].centsEqual).toBeCloseTo(101.3, 1);
+  });
+});
+
+describe("tuningReport on the committed demo demo/chord-exercise.json", () => {
+  it("names I–IV–V7–I and finds the alto's 14 c flat third close to just", () => {
+    const demo = JSON.parse(readFileSync(fileURLToPath(new URL("../../../demo/chord-exercise.json", import.meta.url)), "utf8"));
+    const r = tuningReport(demo.notes, 440);
+    expect(r.chords.slice(0, 4).map((c) => c.symbol)).toEqual(["C", "F", "G7", "C"]);
+    const altoThird = r.notes[1]; // E4 of the first C chord, cents −14 in the ground truth
+    expect(altoThird).toMatchObject({ pitch: 64, voice: 2, centsEqual: -14, chord: "C" });
+    expect(altoThird.centsJust).toBeCloseTo(-14 - JUST_THIRD_BELOW_ET, 2); // −0.31 c
+    expect(r.voices.find((v) => v.voice === 2)).toMatchObject({ tendencyCents: -14, within10: 0 });
+    expect(r.voices.find((v) => v.voice === 1)).toMatchObject({ tendencyCents: 0, within5: 1 });
   });
 });
 

@@ -40,6 +40,10 @@ export interface TrackingConfig {
   splitOdfFraction?: number;
   /** A rise of the note's partials (dB over 30 ms) that counts as an attack without a detection-function peak. */
   attackRiseDb?: number;
+  /** Notes this many dB under the loudest overlapping note are dropped. */
+  concurrentRangeDb?: number;
+  /** Notes this many dB under the take's loudest note are dropped. */
+  takeRangeDb?: number;
 }
 
 /** One tracked note: frame span and per-frame fundamental and level. */
@@ -203,7 +207,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     }
   }
   out.sort((a, b) => a.onsetSec - b.onsetSec || a.f0Hz[0] - b.f0Hz[0]);
-  return pruneShadows(mergeFragments(out, cont), cfg.shadowDb ?? 6);
+  return dropWeak(pruneShadows(mergeFragments(out, cont), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
 }
 
 /**
@@ -252,6 +256,28 @@ function concatI(a: Int32Array, b: Int32Array): Int32Array {
   r.set(a);
   r.set(b, a.length);
   return r;
+}
+
+/**
+ * Drop notes far below what sounds with them: more than `concurrentDb` under the loudest note
+ * overlapping them, or more than `takeDb` under the loudest note of the take. On rendered
+ * instruments nearly every such note was a leftover partial or noise (docs/engine.md).
+ */
+function dropWeak(notes: TrackedNote[], concurrentDb: number, takeDb: number): TrackedNote[] {
+  const peakDb = notes.map((n) => {
+    let p = 0;
+    for (const l of n.level) if (l > p) p = l;
+    return 20 * Math.log10(p + 1e-12);
+  });
+  const takeMax = Math.max(-200, ...peakDb);
+  return notes.filter((n, i) => {
+    if (peakDb[i] < takeMax - takeDb) return false;
+    for (let j = 0; j < notes.length; j++) {
+      const o = notes[j];
+      if (o.onsetSec < n.offsetSec && o.offsetSec > n.onsetSec && peakDb[j] > peakDb[i] + concurrentDb) return false;
+    }
+    return true;
+  });
 }
 
 /** Interval in semitones of harmonic h above a fundamental: 12·log2(h). */

@@ -280,6 +280,9 @@ const failures = await runSteps([
     assert.equal(await page.getByRole("heading", { name: "Upload takes" }).count(), 0);
     assert.equal(await page.getByRole("button", { name: /^Delete/ }).count(), 0);
     await shot(page, "18-listener-project");
+    await page.getByRole("link", { name: "API keys" }).click();
+    await page.getByText("Only owners and editors manage API keys.").waitFor();
+    assert.equal(await page.getByRole("button", { name: "New API key" }).count(), 0);
   }],
   ["no CSP violations or page errors", async () => {
     assert.deepEqual(errors.filter((e) => !/favicon/.test(e)), []);

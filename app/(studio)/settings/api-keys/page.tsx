@@ -8,6 +8,5 @@ export const metadata: Metadata = { title: "API keys" };
 export default async function ApiKeysPage() {
   const actor = await requirePageActor("/settings/api-keys");
   if (!actor.studioId) return <CreateStudioCard />;
-  // Owners and editors manage keys: the same people who may edit (lib/auth/permissions.ts).
-  return <ApiKeysView studioName={actor.studioName} canManage={pageCan(actor, "edit")} myRole={actor.role} />;
+  return <ApiKeysView studioName={actor.studioName} canManage={pageCan(actor, "manageApiKeys")} myRole={actor.role} />;
 }

@@ -54,6 +54,9 @@ export type KeyActor = {
   user: { id: string; name: string; email: string; emailVerified: boolean };
 };
 
+const LAST_USED_EVERY_MS = 60_000;
+const lastUsedWrites = new Map<string, number>();
+
 /** Resolves a bearer key; null when unknown, revoked, or its creator has left the studio. */
 export async function resolveApiKey(key: string): Promise<KeyActor | null> {
   if (!/^tn_[A-Za-z0-9_-]{20,80}$/.test(key)) return null;
@@ -76,7 +79,12 @@ export async function resolveApiKey(key: string): Promise<KeyActor | null> {
     .where(and(eq(apiKey.keyHash, sha256Hex(key)), isNull(apiKey.revokedAt)));
   if (!row) return null;
   const role = ROLE_RANK[row.keyRole] <= ROLE_RANK[row.memberRole] ? row.keyRole : row.memberRole;
-  void db().update(apiKey).set({ lastUsedAt: new Date() }).where(eq(apiKey.id, row.keyId)).catch(() => undefined);
+  const now = Date.now();
+  if (now - (lastUsedWrites.get(row.keyId) ?? 0) > LAST_USED_EVERY_MS) {
+    // at most one write a minute per key: a script's burst of reads must not turn into writes
+    lastUsedWrites.set(row.keyId, now);
+    void db().update(apiKey).set({ lastUsedAt: new Date(now) }).where(eq(apiKey.id, row.keyId)).catch(() => undefined);
+  }
   return {
     keyId: row.keyId,
     keyName: row.keyName,

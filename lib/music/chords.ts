@@ -237,11 +237,17 @@ export function chordSegments(notes: readonly TimedNote[], options: ChordSegment
     off.set(i, snapped.get(notes[i].offsetSec)!);
   }
 
+  // sweep: notes enter at their (snapped) onset and leave at their (snapped) offset
+  const byOnset = [...kept].sort((a, b) => on.get(a)! - on.get(b)! || a - b);
+  let next = 0;
+  let active: number[] = [];
   const segments: ChordSegment[] = [];
   for (let b = 0; b + 1 < boundaries.length; b++) {
     const t0 = boundaries[b];
     const t1 = boundaries[b + 1];
-    const sounding = kept.filter((i) => on.get(i)! <= t0 && off.get(i)! >= t1);
+    while (next < byOnset.length && on.get(byOnset[next])! <= t0) active.push(byOnset[next++]);
+    active = active.filter((i) => off.get(i)! >= t1);
+    const sounding = [...active].sort((a, b) => a - b);
     if (sounding.length === 0) continue;
     const pitches = [...new Set(sounding.map((i) => notes[i].pitch))].sort((a, b) => a - b);
     const pitchClasses = [...new Set(pitches.map(pcOf))].sort((a, b) => a - b);

@@ -147,7 +147,16 @@ export function tuningReport(
   const out: ReportNote[] = notes.map((n, i) => {
     let best: ChordSegment | null = null;
     let bestOverlap = 0;
-    for (const seg of segments) {
+    // segments are in time order and do not overlap: start at the first one ending after the onset
+    let lo = 0;
+    let hi = segments.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (segments[mid].endSec <= n.onsetSec) lo = mid + 1;
+      else hi = mid;
+    }
+    for (let k = lo; k < segments.length && segments[k].startSec < n.offsetSec; k++) {
+      const seg = segments[k];
       const o = overlapSec(n, seg);
       if (o > bestOverlap && segmentRoot(seg)) {
         best = seg;

@@ -78,6 +78,20 @@ describe("alignToAssignment (subsequence DTW over chroma)", () => {
     }
   });
 
+  it("follows rubato (tempo swinging ±15 %) with ±40 ms onset scatter", () => {
+    const expected = exercise();
+    // played time = ∫ local tempo factor: t' = 1.5 + t + 0.15 · (P/2π) · (1 − cos(2πt/P)), P = 6 s
+    const warp = (t: number) => 1.5 + t + ((0.15 * 6) / (2 * Math.PI)) * (1 - Math.cos((2 * Math.PI * t) / 6));
+    const random = rng(21);
+    const played = expected.map((n) => {
+      const j = (random() - 0.5) * 0.08;
+      return { ...n, onsetSec: warp(n.onsetSec) + j, offsetSec: warp(n.offsetSec) + j };
+    });
+    const a = alignToAssignment(played, expected);
+    expect(a.score!).toBeGreaterThanOrEqual(0.95);
+    expect(a.counts.offPitch).toBe(0);
+  });
+
   it("a wrong note is off-pitch, a left-out one missed, an added one extra", () => {
     const expected = exercise();
     const played = perform(expected, 1.1, 2, 0.02);

@@ -5,8 +5,8 @@ import { SpectrumPlan } from "./stft";
 import { findPeaks, PeakScratch, PeakStore, type PeakParams } from "./peaks";
 import { MultiPitchEstimator } from "./multipitch";
 import { SpectralFlux, pickOnsets } from "./onsets";
-import { trackNotes, type FrameDetections } from "./notes";
-import { steadyPitchHz, estimateReferenceHz, pitchAndCents } from "./tuning";
+import { trackNotes, median, type FrameDetections } from "./notes";
+import { steadyPitchHz, estimateReferenceHz, pitchAndCents, attackSkipSec } from "./tuning";
 import { midiToHz } from "../music/pitch";
 
 /** One note of a draft. `pitch` is the nearest 12-TET MIDI note at A4 = 440 Hz, `cents` the deviation. */
@@ -184,8 +184,11 @@ export async function transcribe(
   const weights: number[] = [];
   for (const tn of tracked) {
     const times = Array.from(tn.frames, (f) => f * hopSec);
-    const fHz = steadyPitchHz(times, tn.f0Hz, tn.onsetSec, tn.offsetSec);
-    if (!(fHz > 0)) continue;
+    const fTrack = steadyPitchHz(times, tn.f0Hz, tn.onsetSec, tn.offsetSec);
+    if (!(fTrack > 0)) continue;
+    // measure on every frame of the note's span where this pitch was detected (a track may
+    // have lost frames to a competing voice), not only on the track's own frames
+    const fHz = spanPitchHz(det, hopSec, tn.onsetSec, tn.offsetSec, fTrack) || fTrack;
     const { pitch, cents } = pitchAndCents(fHz);
     if (pitch < settings.pitchRange.lowMidi - 1 || pitch > settings.pitchRange.highMidi + 1) continue;
     let peak = 0;
@@ -214,6 +217,23 @@ export async function transcribe(
   const referenceHz = settings.referenceHz === "estimate" ? round(estimateReferenceHz(centsList, weights), 2) : settings.referenceHz;
   onProgress?.(1);
   return { durationSec, sampleRateHz, referenceHz, settings, notes };
+}
+
+/** Median fundamental of detections within ±40 cents of fNearHz over the note's steady span (0 if < 3). */
+function spanPitchHz(det: FrameDetections, hopSec: number, onsetSec: number, offsetSec: number, fNearHz: number): number {
+  const dur = offsetSec - onsetSec;
+  const a = Math.max(0, Math.ceil((onsetSec + attackSkipSec(dur)) / hopSec));
+  const b = Math.min(det.frames - 1, Math.floor((offsetSec - Math.min(0.05, 0.15 * dur)) / hopSec));
+  const sel: number[] = [];
+  const lo = fNearHz / 1.0234;
+  const hi = fNearHz * 1.0234;
+  for (let t = a; t <= b; t++) {
+    for (let i = 0; i < det.count[t]; i++) {
+      const f = det.f0Hz[t * det.slots + i];
+      if (f >= lo && f <= hi) sel.push(f);
+    }
+  }
+  return sel.length >= 3 ? median(sel) : 0;
 }
 
 /** Greedy voice assignment in onset order: the free voice whose last pitch is nearest. */

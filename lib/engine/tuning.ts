@@ -2,6 +2,15 @@ import { hzToMidi } from "../music/pitch";
 import { median } from "./notes";
 
 /**
+ * Time skipped after an onset before a note's pitch is measured: a sustained note takes up to
+ * ~0.3 s to settle (bow, breath and sample attacks start off pitch), a short one a quarter
+ * of its length (at most 80 ms).
+ */
+export function attackSkipSec(durSec: number): number {
+  return durSec >= 0.7 ? 0.3 : Math.min(0.08, 0.25 * durSec);
+}
+
+/**
  * Tuning of a note: the median of its frame fundamentals over the steady part (after the
  * attack, before the release), so vibrato and the attack transient do not bias it.
  * The frame fundamental is the fundamental's peak, or the lowest strong partial divided by
@@ -9,7 +18,7 @@ import { median } from "./notes";
  */
 export function steadyPitchHz(timesSec: ArrayLike<number>, f0Hz: ArrayLike<number>, onsetSec: number, offsetSec: number): number {
   const dur = offsetSec - onsetSec;
-  const a = onsetSec + Math.min(0.08, 0.25 * dur);
+  const a = onsetSec + attackSkipSec(dur);
   const b = offsetSec - Math.min(0.05, 0.15 * dur);
   const sel: number[] = [];
   for (let i = 0; i < f0Hz.length; i++) if (timesSec[i] >= a && timesSec[i] <= b) sel.push(f0Hz[i]);

@@ -45,9 +45,11 @@ export async function getBalance(studioId: string, now = new Date()): Promise<Ba
 }
 
 /**
- * Uses `cost` credits and runs `produce` inside ONE write transaction (BEGIN IMMEDIATE):
- * concurrent exports serialise, the balance can never go below zero, and a failed export
- * uses nothing. The allowance is used before bought credits. 402 `no_credits` when short.
+ * Uses `cost` credits for the export that `produce` writes. The file is written first
+ * (outside the lock: a large MusicXML can take seconds), then ONE write transaction checks
+ * the balance and records the use; only when that commits is the file handed out. So a
+ * failed export uses nothing, concurrent exports serialise on the ledger, and the balance
+ * can never go below zero. The allowance is used before bought credits. 402 `no_credits`.
  */
 export async function spendCredits<T>(
   studioId: string,
@@ -57,14 +59,16 @@ export async function spendCredits<T>(
   now = new Date(),
 ): Promise<{ result: T; balance: Balance }> {
   const period = periodOf(now);
+  const noCredits = () => new AppError("no_credits", "No export credits are left. An owner can buy an export pack on the Billing page.");
   if (cost === 0) return { result: await produce(), balance: await getBalance(studioId, now) };
+  // cheap early refusal, so an empty balance costs no export work
+  if ((await getBalance(studioId, now)).balance < cost) throw noCredits();
+  const result = await produce();
   return db().transaction(
     async (tx) => {
       await ensureGrant(tx, studioId, period);
       const before = await balanceIn(tx, studioId, period);
-      if (before.balance < cost) {
-        throw new AppError("no_credits", "No export credits are left. An owner can buy an export pack on the Billing page.");
-      }
+      if (before.balance < cost) throw noCredits();
       const fromAllowance = Math.min(cost, before.allowanceLeft);
       const fromPurchased = cost - fromAllowance;
       const rows = [
@@ -74,7 +78,6 @@ export async function spendCredits<T>(
       for (const r of rows) {
         await tx.insert(creditLedger).values({ id: newId(), studioId, kind: "use", takeId: use.takeId, detail: use.detail, createdByUserId: use.userId || null, ...r });
       }
-      const result = await produce();
       return { result, balance: await balanceIn(tx, studioId, period) };
     },
     { behavior: "immediate" },

@@ -1,5 +1,8 @@
 import { describe, expect, it } from "vitest";
 import m from "@tonejs/midi";
+import { readFileSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import { writeMusicXml, writeSmf } from "@/lib/export";
 import {
   AssignmentFileError,
   detectAssignmentFormat,
@@ -175,5 +178,34 @@ describe("MusicXML assignments (partwise, MusicXML 4.0)", () => {
     expectAssignmentError(() => parseAssignmentFile(enc("ID3\x03 this is an mp3, not a score")), "unrecognised_format");
     const noise = new Uint8Array(2048).map((_, i) => (i * 7919 + 13) % 251);
     expectAssignmentError(() => parseAssignmentFile(noise), "unrecognised_format");
+  });
+});
+
+describe("files written by Tapernote's own exporters (lib/export) read back as assignments", () => {
+  const demo = JSON.parse(readFileSync(fileURLToPath(new URL("../../../demo/two-hand-study.json", import.meta.url)), "utf8")).notes;
+  const key = (n: { pitch: number; onsetSec: number }) => `${n.pitch}@${n.onsetSec.toFixed(3)}`;
+
+  it("MusicXML: the quantised notes come back (ties rejoined, hidden rests skipped)", () => {
+    const { xml, layout } = writeMusicXml(demo, { tempoBpm: 96, quantize: "1/16" });
+    const secPerDiv = 60 / layout.tempoBpm / layout.divisionsPerQuarter;
+    const written = layout.notes
+      .map((q) => ({ pitch: q.pitch, onsetSec: q.startDiv * secPerDiv, offsetSec: q.endDiv * secPerDiv }))
+      .sort((a, b) => a.onsetSec - b.onsetSec || a.pitch - b.pitch);
+    const read = parseMusicXmlAssignment(xml);
+    expect(read.map(key)).toEqual(written.map(key));
+    read.forEach((n, i) => expect(n.offsetSec).toBeCloseTo(written[i].offsetSec, 6));
+  });
+
+  it("Standard MIDI File: onsets, offsets and pitches within a tick", () => {
+    const { bytes, layout } = writeSmf(demo);
+    const tickSec = layout.microsecondsPerQuarter / 1e6 / layout.ticksPerQuarter;
+    const read = parseMidiAssignment(bytes);
+    expect(read).toHaveLength(demo.length);
+    const sorted = [...demo].sort((a, b) => a.onsetSec - b.onsetSec || a.pitch - b.pitch);
+    read.forEach((n, i) => {
+      expect(n.pitch).toBe(sorted[i].pitch);
+      expect(Math.abs(n.onsetSec - sorted[i].onsetSec)).toBeLessThanOrEqual(tickSec);
+      expect(Math.abs(n.offsetSec - sorted[i].offsetSec)).toBeLessThanOrEqual(tickSec);
+    });
   });
 });

@@ -42,6 +42,8 @@ export interface TrackingConfig {
   attackRiseDb?: number;
   /** Notes this many dB under the loudest overlapping note are dropped. */
   concurrentRangeDb?: number;
+  /** A detection-function peak at a note's start counts as its attack. */
+  attackFromOdf?: boolean;
   /** Notes this many dB under the take's loudest note are dropped. */
   takeRangeDb?: number;
 }
@@ -190,7 +192,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           // attack: an earlier detected onset close before wins
           onsetSec = on >= 0 && fMed < (cfg.lowRegisterHz ?? 250) && on * hop < envOnset && on * hop > envOnset - 0.12 ? on * hop : envOnset;
           // an attack of its own: a clear detection-function peak there, or a steep rise
-          hasOnset = (snap >= 0 && odf[snap] >= splitOdf) || bestRise >= (cfg.attackRiseDb ?? 15);
+          hasOnset = bestRise >= (cfg.attackRiseDb ?? 10) || ((cfg.attackFromOdf ?? false) && snap >= 0 && odf[snap] >= splitOdf);
         }
       }
       let offsetSec = t1 * hop - 0.25 * frameSec + hop;

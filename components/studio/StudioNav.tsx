@@ -6,6 +6,7 @@ import { cx } from "@/components/ui";
 const LINKS = [
   { href: "/projects", label: "Projects" },
   { href: "/members", label: "Members" },
+  { href: "/billing", label: "Billing" },
   { href: "/settings/api-keys", label: "API keys" },
   { href: "/account", label: "Account" },
 ];

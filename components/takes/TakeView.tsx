@@ -14,6 +14,7 @@ import { ReanalyseForm, startingSettings } from "./ReanalyseForm";
 import { TakePlayer } from "./TakePlayer";
 import { isRunning } from "./types";
 import { useDeleteTake } from "./use-delete-take";
+import { ExportDialog } from "@/components/export/ExportDialog";
 import { useNotes } from "./use-notes";
 import { useTake } from "./use-take";
 
@@ -23,11 +24,15 @@ export function TakeView({
   projectName,
   takeId,
   canEdit,
+  canExport = false,
+  canBuy = false,
 }: {
   projectId: string;
   projectName: string;
   takeId: string;
   canEdit: boolean;
+  canExport?: boolean;
+  canBuy?: boolean;
 }) {
   const router = useRouter();
   const queryClient = useQueryClient();
@@ -35,6 +40,7 @@ export function TakeView({
   const notes = useNotes(takeId);
   const remove = useDeleteTake();
   const [deleting, setDeleting] = useState(false);
+  const [exporting, setExporting] = useState(false);
   const [deleteError, setDeleteError] = useState<string | null>(null);
 
   const analysis = take.data?.analysis ?? null;
@@ -91,11 +97,14 @@ export function TakeView({
           </span>
         }
         actions={
-          canEdit ? (
-            <Button variant="secondary" onClick={() => { setDeleteError(null); setDeleting(true); }}>
-              Delete take
-            </Button>
-          ) : null
+          <div className="flex gap-2">
+            {canExport && notes.data ? <Button onClick={() => setExporting(true)}>Export…</Button> : null}
+            {canEdit ? (
+              <Button variant="secondary" onClick={() => { setDeleteError(null); setDeleting(true); }}>
+                Delete take
+              </Button>
+            ) : null}
+          </div>
         }
       />
 
@@ -143,6 +152,8 @@ export function TakeView({
           <ReanalyseForm takeId={t.id} initial={initialSettings} />
         </Card>
       ) : null}
+
+      {canExport ? <ExportDialog takeId={t.id} open={exporting} onClose={() => setExporting(false)} canBuy={canBuy} /> : null}
 
       <ConfirmDialog
         open={deleting}

@@ -16,5 +16,5 @@ export default async function TakePage({ params }: { params: Promise<{ projectId
     if (isAppError(e) && e.code === "not_found") notFound();
     throw e;
   });
-  return <TakeView projectId={project.id} projectName={project.name} takeId={takeId} canEdit={pageCan(actor, "edit")} />;
+  return <TakeView projectId={project.id} projectName={project.name} takeId={takeId} canEdit={pageCan(actor, "edit")} canExport={pageCan(actor, "export")} canBuy={pageCan(actor, "bill")} />;
 }

@@ -143,7 +143,7 @@ export class MultiPitchEstimator {
     for (let i = 0; i < n; i++) {
       pm[i] = 69 + 12 * Math.log2(freqHz[i] / 440);
       r[i] = amp[i];
-      this.residC[i] = Math.pow(amp[i], gamma);
+      this.residC[i] = gamma === 0.5 ? Math.sqrt(amp[i]) : Math.pow(amp[i], gamma);
     }
     // first[s] = index of the first peak with MIDI ≥ s
     let j = 0;
@@ -227,7 +227,7 @@ export class MultiPitchEstimator {
         }
         const est = cnt === 0 || h === 0 ? ma[h] : Math.min(ma[h], kappa * Math.max(env / cnt, 0.5 * ma[h]));
         r[k] = Math.max(0, r[k] - est);
-        rc[k] = Math.pow(r[k], gamma);
+        rc[k] = gamma === 0.5 ? Math.sqrt(r[k]) : Math.pow(r[k], gamma);
       }
       outF0Hz[outOffset + count] = f0;
       outLevel[outOffset + count] = Math.sqrt(e);

@@ -82,7 +82,7 @@ export async function transcribe(
     const N = Math.max(8, Math.round((r.frameMs * r.rateHz) / 1000));
     let M = 1;
     while (M < N) M <<= 1;
-    M <<= 1; // zero-pad 2×: parabolic-interpolation bias of Hann drops ~10× (Abe & Smith 2004)
+    if (!(i === 2 && tune.noPadHigh)) M <<= 1; // zero-pad 2×: parabolic-interpolation bias of Hann drops ~10× (Abe & Smith 2004)
     const spec = new SpectrumPlan(N, M, r.rateHz, settings.taper, taperParams);
     const nativeBinHz = r.rateHz / N;
     const peak: PeakParams = {

@@ -44,6 +44,8 @@ export interface TrackingConfig {
   concurrentRangeDb?: number;
   /** A detection-function peak at a note's start counts as its attack. */
   attackFromOdf?: boolean;
+  /** How far back (s) a late-detected note's attack may lie while its partials were present. */
+  backtrackSec?: number;
   /** Notes this many dB under the take's loudest note are dropped. */
   takeRangeDb?: number;
 }
@@ -132,7 +134,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     if ((tr.t[tr.t.length - 1] - tr.t[0] + 1) * hop < cfg.shortestNoteSec) continue;
     const fTrack = median(tr.f);
     // the track's own partial level per frame, computed once over the span searched
-    const envFrom = Math.max(0, tr.t[0] - 40);
+    const envFrom = Math.max(0, tr.t[0] - Math.round((cfg.backtrackSec ?? 1) / cfg.hopSec) - 25);
     const envTo = Math.min(det.frames - 1, tr.t[tr.t.length - 1] + 8);
     const envDb = new Float32Array(envTo - envFrom + 1).fill(-200);
     if (store) for (let t = envFrom; t <= envTo; t++) envDb[t - envFrom] = store.harmonicLevelDb(t, fTrack);
@@ -167,7 +169,13 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
       let hasOnset = on >= 0;
       if (store) {
         // the note's own attack: the steepest rise of its partials' level in the short frames
-        const a = Math.max(2, t0 - back);
+        // a voice masked by louder ones at its attack is detected late: while its own partials
+        // were already there (within 8 dB of their level at the first detection), look further back
+        let tb = t0;
+        const ref = Math.max(env(t0), env(t0 + 1), env(t0 + 2));
+        const limit = t0 - Math.round((cfg.backtrackSec ?? 1) / hop);
+        while (tb > limit && tb > 2 && env(tb - 1) >= ref - 8) tb--;
+        const a = Math.max(2, Math.min(t0 - back, tb - 5));
         const b = Math.min(det.frames - 2, t0 + look);
         let peakEnv = -200;
         for (let t = a; t <= Math.min(det.frames - 1, t1); t++) peakEnv = Math.max(peakEnv, env(t));

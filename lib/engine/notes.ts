@@ -134,7 +134,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     if ((tr.t[tr.t.length - 1] - tr.t[0] + 1) * hop < cfg.shortestNoteSec) continue;
     const fTrack = median(tr.f);
     // the track's own partial level per frame, computed once over the span searched
-    const envFrom = Math.max(0, tr.t[0] - Math.round((cfg.backtrackSec ?? 1) / cfg.hopSec) - 25);
+    const envFrom = Math.max(0, tr.t[0] - Math.round((cfg.backtrackSec ?? 2) / cfg.hopSec) - 25);
     const envTo = Math.min(det.frames - 1, tr.t[tr.t.length - 1] + 8);
     const envDb = new Float32Array(envTo - envFrom + 1).fill(-200);
     if (store) for (let t = envFrom; t <= envTo; t++) envDb[t - envFrom] = store.harmonicLevelDb(t, fTrack);
@@ -173,7 +173,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         // were already there (within 8 dB of their level at the first detection), look further back
         let tb = t0;
         const ref = Math.max(env(t0), env(t0 + 1), env(t0 + 2));
-        const limit = t0 - Math.round((cfg.backtrackSec ?? 1) / hop);
+        const limit = t0 - Math.round((cfg.backtrackSec ?? 2) / hop);
         while (tb > limit && tb > 2 && env(tb - 1) >= ref - 8) tb--;
         const a = Math.max(2, Math.min(t0 - back, tb - 5));
         const b = Math.min(det.frames - 2, t0 + look);
@@ -181,13 +181,27 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         for (let t = a; t <= Math.min(det.frames - 1, t1); t++) peakEnv = Math.max(peakEnv, env(t));
         let best = -1;
         let bestRise = 3; // dB over 30 ms, at least
-        for (let t = a; t <= b; t++) {
+        const riseAt = (t: number) => {
           const e1 = env(t + 1);
-          if (e1 < peakEnv - 20) continue;
-          const rise = e1 - Math.max(env(t - 2), peakEnv - 40);
+          return e1 < peakEnv - 20 ? 0 : e1 - Math.max(env(t - 2), peakEnv - 40);
+        };
+        for (let t = a; t <= b; t++) {
+          const rise = riseAt(t);
           if (rise > bestRise) {
             bestRise = rise;
             best = t;
+          }
+        }
+        // when the window reaches back past the first detection, another sound's attack may
+        // be the steepest: take the latest rise that is at least half as steep
+        if (best >= 0 && tb < t0) {
+          for (let t = b; t > best; t--) {
+            const rise = riseAt(t);
+            if (rise >= 0.5 * bestRise && rise >= 6 && (t === b || rise >= riseAt(t + 1)) && rise >= riseAt(t - 1)) {
+              best = t;
+              bestRise = rise;
+              break;
+            }
           }
         }
         if (best >= 0) {

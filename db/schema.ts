@@ -258,3 +258,52 @@ export const stripeEvent = sqliteTable("stripe_event", {
   type: text("type").notNull(),
   receivedAt: createdAt(),
 });
+
+/** The expected notes of an exercise, attached to a take (from MIDI, MusicXML or another take's notes). */
+export const assignment = sqliteTable("assignment", {
+  takeId: text("take_id")
+    .primaryKey()
+    .references(() => take.id, { onDelete: "cascade" }),
+  id: text("id").notNull().unique(),
+  name: text("name").notNull(),
+  sourceFormat: text("source_format", { enum: ["midi", "musicxml", "take"] }).notNull(),
+  notesJson: text("notes_json").notNull(),
+  noteCount: integer("note_count").notNull(),
+  createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+  createdAt: createdAt(),
+});
+
+/** A comment on a take, a note of it or a time range; replies point at their parent. */
+export const comment = sqliteTable(
+  "comment",
+  {
+    id: text("id").primaryKey(),
+    takeId: text("take_id")
+      .notNull()
+      .references(() => take.id, { onDelete: "cascade" }),
+    parentId: text("parent_id"),
+    authorUserId: text("author_user_id").references(() => user.id, { onDelete: "set null" }),
+    body: text("body").notNull(),
+    /** JSON: {kind:"take"} | {kind:"note", noteIndex, onsetSec, pitch} | {kind:"range", startSec, endSec} */
+    targetJson: text("target_json").notNull().default('{"kind":"take"}'),
+    createdAt: createdAt(),
+  },
+  (t) => [index("comment_take_idx").on(t.takeId, t.createdAt)],
+);
+
+/** A read-only link to one take for people without an account; only the token's SHA-256 is stored. */
+export const shareLink = sqliteTable(
+  "share_link",
+  {
+    id: text("id").primaryKey(),
+    takeId: text("take_id")
+      .notNull()
+      .references(() => take.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull().unique(),
+    expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+    revokedAt: integer("revoked_at", { mode: "timestamp_ms" }),
+    createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("share_link_take_idx").on(t.takeId)],
+);

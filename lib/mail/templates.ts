@@ -52,3 +52,13 @@ export function receiptMail(name: string, credits: number, price: string, refere
     html: `<div style="font-family:sans-serif;color:#1D2433;background:#FAF7F0;padding:24px">${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join("")}</div>`,
   };
 }
+
+export function commentMail(author: string, takeName: string, body: string, url: string) {
+  const excerpt = body.length > 300 ? `${body.slice(0, 300)}…` : body;
+  const lines = [`${author} commented on "${takeName}":`, excerpt, "Open the take to read it and reply:"];
+  return {
+    subject: `New comment on ${takeName}`,
+    text: `${lines.join("\n\n")}\n\n${url}`,
+    html: page(lines, { href: url, label: "Open the take" }),
+  };
+}

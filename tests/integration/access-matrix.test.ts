@@ -50,6 +50,7 @@ async function newInvitation(): Promise<string> {
 }
 
 let takeProject = "";
+let sourceTake = "";
 const wav = toneWav({ freqsHz: [261.63], durationSec: 0.5 });
 
 async function newTake(): Promise<string> {
@@ -108,6 +109,12 @@ const OPS: Record<string, Op> = {
     path: async () => `/api/v1/takes/${await takeWithNotes()}/notes`,
     body: () => ({ baseRevision: 1, notes: [{ onsetSec: 0, offsetSec: 0.5, pitch: 61, cents: 0, velocity: 80, voice: 1 }] }),
   },
+  "read tuning report": { method: "GET", path: async () => `/api/v1/takes/${await takeWithNotes()}/tuning-report` },
+  "list comments": { method: "GET", path: async () => `/api/v1/takes/${await newTake()}/comments` },
+  "start a comment thread": { method: "POST", path: async () => `/api/v1/takes/${await newTake()}/comments`, body: () => ({ body: "Watch the third bar." }) },
+  "list share links": { method: "GET", path: async () => `/api/v1/takes/${await newTake()}/share-links` },
+  "create share link": { method: "POST", path: async () => `/api/v1/takes/${await newTake()}/share-links`, body: () => ({ expiresInDays: 3 }) },
+  "attach assignment from a take": { method: "PUT", path: async () => `/api/v1/takes/${await takeWithNotes()}/assignment`, body: () => ({ fromTakeId: sourceTake }) },
   "export CSV": { method: "GET", path: async () => `/api/v1/takes/${await takeWithNotes()}/export?format=csv` },
   "export MIDI": { method: "GET", path: async () => `/api/v1/takes/${await takeWithNotes()}/export?format=midi` },
   "read credits": { method: "GET", path: () => "/api/v1/credits" },
@@ -145,6 +152,12 @@ const MATRIX: Record<keyof typeof OPS, Record<Principal, number>> = {
   "cancel analysis":    { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
   "read notes":         { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
   "save notes":         { signedOut: 401, outsider: 404, listener: 403, editor: 201, owner: 201 },
+  "read tuning report": { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "list comments":      { signedOut: 401, outsider: 404, listener: 200, editor: 200, owner: 200 },
+  "start a comment thread": { signedOut: 401, outsider: 404, listener: 403, editor: 201, owner: 201 },
+  "list share links":   { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
+  "create share link":  { signedOut: 401, outsider: 404, listener: 403, editor: 201, owner: 201 },
+  "attach assignment from a take": { signedOut: 401, outsider: 404, listener: 403, editor: 201, owner: 201 },
   "export CSV":         { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
   "export MIDI":        { signedOut: 401, outsider: 404, listener: 403, editor: 200, owner: 200 },
   "read credits":       { signedOut: 401, outsider: 200, listener: 200, editor: 200, owner: 200 },
@@ -175,6 +188,7 @@ beforeAll(async () => {
   }
   cookies.outsider = await signUpVerified("outsider@elsewhere.test", "Theo Outsider");
   takeProject = (await asOwner("POST", "/api/v1/projects", { name: "Matrix takes" })).project.id;
+  sourceTake = await takeWithNotes();
 }, 120_000);
 afterAll(async () => app.close());
 

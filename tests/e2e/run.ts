@@ -50,6 +50,7 @@ const oggPath = path.join(process.cwd(), "tests", "e2e", "fixtures", "g3-b3-ster
 }
 
 const email = `ada.quill.${Date.now()}@example.org`;
+let expectedBalance = 0;
 const projectName = "Wednesday theory group";
 
 const failures = await runSteps([
@@ -283,6 +284,54 @@ const failures = await runSteps([
     await page.getByRole("link", { name: "API keys" }).click();
     await page.getByText("Only owners and editors manage API keys.").waitFor();
     assert.equal(await page.getByRole("button", { name: "New API key" }).count(), 0);
+  }],
+  ["the owner buys a 25-pack through the test checkout; the balance rises by 25", async () => {
+    await page.getByRole("button", { name: "Sign out" }).first().click();
+    await page.waitForURL(/\/sign-in/);
+    await page.fill("#email", "owner@example.com");
+    await page.fill("#password", "tapernote-demo");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/projects/);
+    await page.getByRole("link", { name: "Billing" }).click();
+    const balance = page.getByTestId("balance");
+    await balance.filter({ hasText: /\d/ }).waitFor();
+    const before = Number(await balance.textContent());
+    await shot(page, "19-billing");
+    await page.getByRole("button", { name: "Buy 25 credits" }).click();
+    await page.getByLabel("Card number").waitFor();
+    await shot(page, "20-test-checkout");
+    await page.fill("#card", "4242 4242 4242 4242");
+    await page.getByRole("button", { name: /^Pay/ }).click();
+    await page.waitForURL(/\/billing\?checkout=success/);
+    await balance.filter({ hasText: String(before + 25) }).waitFor({ timeout: 15_000 });
+    await shot(page, "21-billing-credited");
+    expectedBalance = before + 25;
+  }],
+  ["the receipt is in the mailbox page", async () => {
+    await page.goto(`${app.baseUrl}/dev/mailbox`);
+    await page.locator('[data-testid="mail"]', { hasText: "Your Tapernote receipt: 25 export credits" }).first().waitFor();
+  }],
+  ["an editor exports a MIDI file; the balance falls by one", async () => {
+    await page.goto(`${app.baseUrl}/projects`);
+    await page.getByRole("button", { name: "Sign out" }).first().click();
+    await page.waitForURL(/\/sign-in/);
+    await page.fill("#email", "editor@example.com");
+    await page.fill("#password", "tapernote-demo");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/projects/);
+    await page.getByRole("link", { name: "Grade 3 chord exercises" }).click();
+    await page.getByRole("link", { name: /Chord exercise in C/ }).click();
+    await page.getByRole("button", { name: "Export…" }).click({ timeout: 120_000 });
+    await page.getByLabel(/Carry each note/).check();
+    await shot(page, "22-export-dialog");
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Export", exact: true }).click()]);
+    assert.match(download.suggestedFilename(), /\.mid$/);
+    const bytes = readFileSync((await download.path())!);
+    assert.equal(bytes.subarray(0, 4).toString("latin1"), "MThd");
+    await page.getByText(/^Downloaded /).waitFor();
+    await page.goto(`${app.baseUrl}/billing`);
+    await page.getByTestId("balance").filter({ hasText: String(expectedBalance - 1) }).waitFor();
+    await shot(page, "23-billing-after-export");
   }],
   ["no CSP violations or page errors", async () => {
     assert.deepEqual(errors.filter((e) => !/favicon/.test(e)), []);

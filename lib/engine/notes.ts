@@ -46,6 +46,8 @@ export interface TrackingConfig {
   attackFromOdf?: boolean;
   /** How far back (s) a late-detected note's attack may lie while its partials were present. */
   backtrackSec?: number;
+  /** Backtracking stops at an onset of at least this fraction of the detection function's 95th percentile. */
+  backtrackOdf?: number;
   /** Notes this many dB under the take's loudest note are dropped. */
   takeRangeDb?: number;
 }
@@ -126,7 +128,8 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
   const hop = cfg.hopSec;
   // a re-articulation needs a real attack: a detection-function peak of at least this height
   const sortedOdf = Float32Array.from(odf).sort();
-  const splitOdf = (cfg.splitOdfFraction ?? 0.3) * (sortedOdf[Math.floor(0.95 * (sortedOdf.length - 1))] || 0);
+  const p95Odf = sortedOdf[Math.floor(0.95 * (sortedOdf.length - 1))] || 0;
+  const splitOdf = (cfg.splitOdfFraction ?? 0.3) * p95Odf;
   for (const tr of done) {
     let peak = 0;
     for (const l of tr.l) if (l > peak) peak = l;
@@ -173,7 +176,13 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         // were already there (within 8 dB of their level at the first detection), look further back
         let tb = t0;
         const ref = Math.max(env(t0), env(t0 + 1), env(t0 + 2));
-        const limit = t0 - Math.round((cfg.backtrackSec ?? 2) / hop);
+        let limit = t0 - Math.round((cfg.backtrackSec ?? 2) / hop);
+        // …but not past the last clear onset of the take before it: earlier, its partials
+        // may be another voice's
+        for (const o of onsetFrames) {
+          if (o > t0) break;
+          if (odf[o] >= (cfg.backtrackOdf ?? 2) * p95Odf) limit = Math.max(limit, o - 3);
+        }
         while (tb > limit && tb > 2 && env(tb - 1) >= ref - 8) tb--;
         const a = Math.max(2, Math.min(t0 - back, tb - 5));
         const b = Math.min(det.frames - 2, t0 + look);

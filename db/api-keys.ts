@@ -42,6 +42,7 @@ export async function revokeApiKey(studioId: string, id: string): Promise<void> 
     .where(and(eq(apiKey.id, id), eq(apiKey.studioId, studioId), isNull(apiKey.revokedAt)))
     .returning({ id: apiKey.id });
   if (done.length === 0) throw notFound("This API key");
+  forgetCachedKeys();
 }
 
 export type KeyActor = {
@@ -57,9 +58,28 @@ export type KeyActor = {
 const LAST_USED_EVERY_MS = 60_000;
 const lastUsedWrites = new Map<string, number>();
 
+// A short in-process cache of resolved keys: a script's burst of calls costs one lookup.
+// Revoking through this process clears it at once; elsewhere a change shows within KEY_CACHE_MS.
+const KEY_CACHE_MS = 5000;
+const keyCache = new Map<string, { actor: KeyActor | null; until: number }>();
+
+export function forgetCachedKeys(): void {
+  keyCache.clear();
+}
+
 /** Resolves a bearer key; null when unknown, revoked, or its creator has left the studio. */
 export async function resolveApiKey(key: string): Promise<KeyActor | null> {
   if (!/^tn_[A-Za-z0-9_-]{20,80}$/.test(key)) return null;
+  const hash = sha256Hex(key);
+  const cached = keyCache.get(hash);
+  if (cached && cached.until > Date.now()) return cached.actor;
+  const actor = await lookUpApiKey(hash);
+  if (keyCache.size > 1000) keyCache.clear();
+  keyCache.set(hash, { actor, until: Date.now() + KEY_CACHE_MS });
+  return actor;
+}
+
+async function lookUpApiKey(hash: string): Promise<KeyActor | null> {
   const [row] = await db()
     .select({
       keyId: apiKey.id,
@@ -76,7 +96,7 @@ export async function resolveApiKey(key: string): Promise<KeyActor | null> {
     .innerJoin(studio, eq(studio.id, apiKey.studioId))
     .innerJoin(studioMember, and(eq(studioMember.studioId, apiKey.studioId), eq(studioMember.userId, apiKey.createdByUserId)))
     .innerJoin(user, eq(user.id, studioMember.userId))
-    .where(and(eq(apiKey.keyHash, sha256Hex(key)), isNull(apiKey.revokedAt)));
+    .where(and(eq(apiKey.keyHash, hash), isNull(apiKey.revokedAt)));
   if (!row) return null;
   const role = ROLE_RANK[row.keyRole] <= ROLE_RANK[row.memberRole] ? row.keyRole : row.memberRole;
   const now = Date.now();

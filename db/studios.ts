@@ -5,6 +5,7 @@ import { newId, newToken, sha256Hex } from "./ids";
 import { invitation, studio, studioMember, user } from "./schema";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import type { Role } from "@/lib/auth/permissions";
+import { forgetCachedKeys } from "./api-keys";
 
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
 
@@ -88,6 +89,7 @@ export async function changeMemberRole(studioId: string, memberId: string, role:
     }
     await tx.update(studioMember).set({ role }).where(eq(studioMember.id, memberId));
   });
+  forgetCachedKeys(); // a key never outranks its creator's current role
   const members = await listMembers(studioId);
   return members.find((m) => m.id === memberId)!;
 }
@@ -105,6 +107,7 @@ export async function removeMember(studioId: string, memberId: string): Promise<
     }
     await tx.delete(studioMember).where(eq(studioMember.id, memberId));
   });
+  forgetCachedKeys();
 }
 
 export type InvitationRow = {

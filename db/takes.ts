@@ -251,3 +251,43 @@ export async function listRevisions(studioId: string, takeId: string): Promise<R
 }
 
 export { conflict };
+
+// ---- fast reads of "the notes" ---------------------------------------------------------------
+
+const NOTES_CACHE_MAX = 256;
+const notesCache = new Map<string, string>();
+
+/**
+ * The GET /notes body as JSON text. One small query finds which revision or draft is "the
+ * notes" now; the serialised body of that version is kept in a bounded in-process cache, so
+ * repeated reads (players, scripts) parse and serialise nothing. A new revision or draft has a
+ * new key, so the cache never serves stale notes.
+ */
+export async function getTakeNotesBody(studioId: string, takeId: string, opts: { revision?: number; curves?: boolean } = {}): Promise<string> {
+  const [version] = await db()
+    .select({
+      // explicit aliases: unqualified column names inside a subquery would bind to the inner table
+      latestRevision: sql<number | null>`(select max(r.number) from revision r where r.take_id = "take"."id")`,
+      latestDraft: sql<string | null>`(select d.analysis_id from draft d join analysis a on a.id = d.analysis_id where d.take_id = "take"."id" order by a.created_at desc limit 1)`,
+    })
+    .from(take)
+    .where(and(eq(take.id, takeId), eq(take.studioId, studioId)));
+  if (!version) throw notFound("This take");
+  const key = `${takeId}|${opts.revision ?? version.latestRevision ?? 0}|${opts.revision ? "" : (version.latestDraft ?? "")}|${opts.curves ? 1 : 0}`;
+  const hit = notesCache.get(key);
+  if (hit !== undefined) {
+    notesCache.delete(key);
+    notesCache.set(key, hit); // most recently used last
+    return hit;
+  }
+  const notes = await getTakeNotes(studioId, takeId, { revision: opts.revision });
+  const body = JSON.stringify({
+    source: notes.source,
+    ...(notes.revision !== undefined ? { revision: notes.revision } : {}),
+    referenceHz: notes.referenceHz,
+    notes: opts.curves ? notes.notes : notes.notes.map(({ pitchCurve: _curve, ...n }) => n),
+  });
+  notesCache.set(key, body);
+  if (notesCache.size > NOTES_CACHE_MAX) notesCache.delete(notesCache.keys().next().value!);
+  return body;
+}

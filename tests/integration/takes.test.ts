@@ -117,6 +117,20 @@ describe("uploading a take", () => {
     expect((await cancelled.json()).analysis.state).toBe("failed");
   });
 
+  it("a newer draft replaces the notes at once (no stale cached read)", async () => {
+    // a fresh take, read once (so its draft is cached), then re-analysed with a voice limit of 1
+    const res = await upload({ file: toneWav({ freqsHz: [440, 554.365], durationSec: 2 }), name: "Third again" });
+    const id = (await res.json()).take.id;
+    await runQueuedJobs();
+    const first = await (await call("GET", `/api/v1/takes/${id}/notes`, { cookie: editor })).json();
+    expect(new Set(first.notes.map((n: { pitch: number }) => n.pitch)).size).toBeGreaterThanOrEqual(2);
+    await call("POST", `/api/v1/takes/${id}/analyses`, { cookie: editor, body: { settings: { voiceLimit: 1 } } });
+    await runQueuedJobs();
+    const second = await (await call("GET", `/api/v1/takes/${id}/notes`, { cookie: editor })).json();
+    expect(new Set(second.notes.map((n: { pitch: number }) => n.pitch)).size).toBe(1);
+    await call("DELETE", `/api/v1/takes/${id}`, { cookie: editor });
+  });
+
   it("deletes a take for good: rows and files", async () => {
     expect((await call("DELETE", `/api/v1/takes/${takeId}`, { cookie: listener })).status).toBe(403);
     expect(existsSync(path.join(process.env.DATA_DIR!, takeId))).toBe(true);

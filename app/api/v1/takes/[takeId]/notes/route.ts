@@ -1,5 +1,5 @@
 import { NextResponse } from "next/server";
-import { getTakeNotes, getTakeRow, saveRevision } from "@/db/takes";
+import { getTakeNotesBody, getTakeRow, saveRevision } from "@/db/takes";
 import { parseJson, route } from "@/lib/api/respond";
 import { requireActor, requireRole } from "@/lib/auth/actor";
 import { AppError } from "@/lib/errors";
@@ -12,15 +12,12 @@ export const GET = route(async (request, { params }: Ctx) => {
   const url = new URL(request.url);
   const rev = url.searchParams.get("revision");
   if (rev !== null && !/^[1-9][0-9]*$/.test(rev)) throw new AppError("bad_request", "revision must be a positive whole number.");
-  const withCurves = url.searchParams.get("curves") === "1";
-  const notes = await getTakeNotes(actor.studioId, (await params).takeId, { revision: rev ? Number(rev) : undefined });
   requireRole(actor, "read");
-  return NextResponse.json({
-    source: notes.source,
-    ...(notes.revision !== undefined ? { revision: notes.revision } : {}),
-    referenceHz: notes.referenceHz,
-    notes: withCurves ? notes.notes : notes.notes.map(({ pitchCurve: _curve, ...n }) => n),
+  const body = await getTakeNotesBody(actor.studioId, (await params).takeId, {
+    revision: rev ? Number(rev) : undefined,
+    curves: url.searchParams.get("curves") === "1",
   });
+  return new Response(body, { headers: { "content-type": "application/json" } });
 });
 
 /** Saves corrected notes as the next revision; 409 when baseRevision is not the latest. */

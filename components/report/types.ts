@@ -1,0 +1,33 @@
+import type { ReportChord, ReportNote, TuningSummary, VoiceSummary } from "@/lib/music/tuning-report";
+
+/** `GET /api/v1/takes/{takeId}/tuning-report` (and the `report` of a shared take). */
+export type TuningReportDto = {
+  referenceHz: number;
+  /** Estimated from the take's own notes; null when there are too few. */
+  estimatedReferenceHz?: number | null;
+  referenceOffsetCents: number;
+  notes: ReportNote[];
+  voices: VoiceSummary[];
+  summary: TuningSummary;
+  chords: ReportChord[];
+};
+
+/** A note with its pitch curve (`GET /api/v1/takes/{takeId}/notes?curves=1`). */
+export type CurveNote = {
+  onsetSec: number;
+  offsetSec: number;
+  pitch: number;
+  cents: number;
+  velocity: number;
+  voice: number;
+  pitchCurve?: { timeSec: number[]; cents: number[] };
+};
+
+export type CurveNotesDto = {
+  source: "draft" | "revision";
+  revision?: number;
+  referenceHz: number;
+  notes: CurveNote[];
+};
+
+export type { ReportChord, ReportNote, TuningSummary, VoiceSummary };

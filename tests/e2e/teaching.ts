@@ -1,0 +1,128 @@
+// Browser steps for teaching (issue 6): the teacher's tuning report and comment on a note, a share
+// link, and the student replaying the take, reading the comment and replying. Called from run.ts.
+import assert from "node:assert/strict";
+import type { Page } from "playwright-core";
+
+export type TeachingContext = {
+  page: Page;
+  baseUrl: string;
+  /** The harness's full-page screenshot: shot(page, name) writes tests/artifacts/<name>.png. */
+  shot: (page: Page, name: string) => Promise<void>;
+};
+
+const PROJECT = "Grade 3 chord exercises";
+const TAKE = "Chord exercise in C — Mila, week 4";
+const COMMENT = "Listen to this note again: it sits flat against the others. Lift it a little before the chord changes.";
+const REPLY = "Thank you, I will lift it next time and send you a new take.";
+
+export function teachingSteps({ page, baseUrl, shot }: TeachingContext): [string, () => Promise<void>][] {
+  let takeUrl = "";
+  let shareUrl = "";
+
+  const signOutIfSignedIn = async () => {
+    await page.goto(`${baseUrl}/projects`);
+    if (/\/sign-in/.test(page.url())) return;
+    await page.getByRole("button", { name: "Sign out" }).first().click();
+    await page.waitForURL(/\/sign-in/);
+  };
+  const signIn = async (email: string) => {
+    await signOutIfSignedIn();
+    await page.fill("#email", email);
+    await page.fill("#password", "tapernote-demo");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/projects/);
+  };
+
+  return [
+    ["teaching: the teacher opens the demo chord exercise once its analysis is ready", async () => {
+      await signIn("editor@example.com");
+      await page.getByRole("link", { name: PROJECT }).click();
+      await page.getByRole("link", { name: TAKE }).click();
+      await page.getByRole("heading", { name: TAKE }).waitFor();
+      // the job runner analyses the demo takes on first start
+      await page.locator('[data-testid="analysis-status"][data-state="ready"]').waitFor({ timeout: 60_000 });
+      takeUrl = page.url().replace(/[?#].*$/, "");
+    }],
+    ["teaching: the tuning report shows the summary, the plots and the worst notes", async () => {
+      const link = page.getByRole("link", { name: "Tuning report" });
+      if (await link.count()) await link.first().click();
+      else await page.goto(`${takeUrl}/report`);
+      await page.waitForURL(/\/report$/);
+      await page.getByRole("heading", { name: /Tuning report/ }).waitFor();
+      await page.locator('[data-testid^="deviation-plot-voice-"]').first().waitFor({ timeout: 20_000 });
+      await page.getByRole("table", { name: "The ten notes furthest from equal temperament" }).locator("tbody tr").first().waitFor();
+      assert.match((await page.getByRole("table", { name: "Tuning per voice" }).textContent()) ?? "", /%/);
+      await page.getByTestId("pitch-curve").waitFor();
+      await shot(page, "t1-tuning-report");
+      // compare at another reference pitch: the report is measured again
+      await page.getByRole("radio", { name: "442 Hz" }).click();
+      await page.getByTestId("report-reference").filter({ hasText: "442.0 Hz" }).waitFor();
+      await page.emulateMedia({ media: "print" });
+      await shot(page, "t2-tuning-report-print");
+      await page.emulateMedia({ media: "screen" });
+      const worstLink = page.getByRole("link", { name: "Open in take" }).first();
+      assert.match((await worstLink.getAttribute("href")) ?? "", /\/takes\/[^/]+\?t=\d+(\.\d+)?$/);
+    }],
+    ["teaching: the teacher comments on a note (an empty comment is refused next to the field)", async () => {
+      await page.goto(`${takeUrl}/replay`);
+      await page.getByRole("heading", { name: /Replay/ }).waitFor();
+      const form = page.getByRole("form", { name: "New comment" });
+      await form.waitFor();
+      await form.getByLabel("About").selectOption("note");
+      await form.getByRole("button", { name: "Add comment" }).click();
+      await page.locator("#comment-note-error").waitFor();
+      await page.locator("#comment-body-error").waitFor();
+      await form.getByLabel("Note", { exact: true }).selectOption({ index: 2 });
+      await form.getByLabel("Comment").fill(COMMENT);
+      await form.getByRole("button", { name: "Add comment" }).click();
+      const thread = page.getByTestId("comment-thread").filter({ hasText: COMMENT });
+      await thread.waitFor();
+      assert.match((await thread.textContent()) ?? "", /Note [A-G]/);
+      await shot(page, "t3-teacher-comment");
+    }],
+    ["teaching: the teacher makes a share link, shown once", async () => {
+      await page.goto(takeUrl);
+      await page.getByRole("button", { name: "Create share link" }).click();
+      const field = page.getByTestId("new-share-link");
+      await field.waitFor();
+      shareUrl = await field.inputValue();
+      assert.match(shareUrl, /\/share\/[^/]+$/);
+      await page.getByTestId("share-link-row").first().waitFor();
+      await field.scrollIntoViewIfNeeded();
+      await shot(page, "t4-share-link");
+      await page.getByRole("button", { name: "Done" }).click();
+      assert.ok(!(await page.textContent("body"))?.includes(shareUrl), "the link is not shown again");
+    }],
+    ["teaching: the student reads the comment, replies and replays both", async () => {
+      await signIn("listener@example.com");
+      await page.goto(`${takeUrl}/replay`);
+      const thread = page.getByTestId("comment-thread").filter({ hasText: COMMENT });
+      await thread.waitFor();
+      assert.equal(await page.getByRole("form", { name: "New comment" }).count(), 0, "a listener starts no new comment");
+      await thread.getByRole("button", { name: "Reply" }).click();
+      await thread.getByLabel("Your reply").fill(REPLY);
+      await thread.getByRole("button", { name: "Send reply" }).click();
+      await thread.getByText(REPLY).waitFor();
+      await page.getByRole("radio", { name: "Both" }).click();
+      await page.getByTestId("replay-play").click();
+      await page.getByRole("button", { name: "Pause" }).waitFor();
+      await page.waitForTimeout(1200);
+      const clock = (await page.getByTestId("replay-clock").textContent()) ?? "";
+      const seconds = Number(/(\d+):(\d+\.\d+)/.exec(clock)?.[2] ?? 0);
+      assert.ok(seconds >= 0.5, `the playhead moved (${clock})`);
+      await shot(page, "t5-student-replay");
+      await page.getByRole("button", { name: "Pause" }).click();
+    }],
+    ["teaching: the share link opens the replay without an account; a wrong one says so", async () => {
+      await signOutIfSignedIn();
+      await page.goto(shareUrl);
+      await page.getByRole("heading", { name: TAKE }).waitFor();
+      await page.getByTestId("comment-thread").filter({ hasText: COMMENT }).waitFor();
+      assert.equal(await page.getByRole("button", { name: "Reply" }).count(), 0, "comments are read-only");
+      await page.getByTestId("note-strip").waitFor();
+      await shot(page, "t6-shared-replay");
+      await page.goto(`${baseUrl}/share/not-a-real-token`);
+      await page.getByText("This link has expired or was withdrawn").waitFor();
+    }],
+  ];
+}

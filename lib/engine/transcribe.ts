@@ -75,14 +75,13 @@ export async function transcribe(
     signals.unshift(r.rateHz === prevRate ? prevSig : await resample(prevSig, prevRate, r.rateHz));
   }
   onProgress?.(0.1);
-  const tune = process.env.TN_TUNE ? JSON.parse(process.env.TN_TUNE) : {};
   const taperParams = { kaiserBeta: settings.kaiserBeta, gaussianAlpha: settings.gaussianAlpha };
   const lowHz = midiToHz(settings.pitchRange.lowMidi) * 0.97;
   const regs = plan.map((r, i) => {
     const N = Math.max(8, Math.round((r.frameMs * r.rateHz) / 1000));
     let M = 1;
     while (M < N) M <<= 1;
-    if (!(i === 2 && tune.noPadHigh)) M <<= 1; // zero-pad 2×: parabolic-interpolation bias of Hann drops ~10× (Abe & Smith 2004)
+    M <<= 1; // zero-pad 2×: parabolic-interpolation bias of Hann drops ~10× (Abe & Smith 2004)
     const spec = new SpectrumPlan(N, M, r.rateHz, settings.taper, taperParams);
     const nativeBinHz = r.rateHz / N;
     const peak: PeakParams = {
@@ -93,7 +92,7 @@ export async function transcribe(
       rangeDb: 70,
       minPower: Math.pow((1e-4 * spec.taperSum) / 2, 2),
       floorHalfWidth: Math.max(4, Math.round((6 * nativeBinHz) / spec.binHz)),
-      floorFactor: tune.floorFactor ?? 4,
+      floorFactor: 4, // 6 dB over the local mean power
     };
     // long frames move little in one hop: analyse them every other hop and reuse the peaks
     const stride = r.frameMs >= 100 ? 2 : 1;
@@ -135,7 +134,6 @@ export async function transcribe(
       voiceLimit: V,
       sensitivityDb: settings.sensitivityDb,
       maxFreqHz: 7000,
-      ...(process.env.TN_TUNE ? JSON.parse(process.env.TN_TUNE) : {}),
     },
     maxPeaks,
   );
@@ -169,14 +167,12 @@ export async function transcribe(
     det.count[t] = est.estimate(pf, pa, n, det.f0Hz, det.level, salience, t * V);
     if (onProgress && t % progressEvery === 0) onProgress(0.1 + (0.8 * t) / frames);
   }
-  if (process.env.TN_DEBUG) debugDump(det, salience, odf, hopSec, process.env.TN_DEBUG);
   const onsetFrames = pickOnsets(odf);
   const frameLengthSecFor = (f0: number) => (f0 < regs[0].hiHz ? regs[0].frameSec : f0 < regs[1].hiHz ? regs[1].frameSec : regs[2].frameSec);
   const tracked = trackNotes(det, odf, onsetFrames, {
     hopSec,
     shortestNoteSec: settings.shortestNoteMs / 1000,
     frameLengthSecFor,
-    ...(tune.tracking ?? {}),
   }, store);
   onProgress?.(0.95);
   const notes: Note[] = [];
@@ -265,17 +261,4 @@ function assignVoices(notes: Note[]): void {
 function round(x: number, digits: number): number {
   const k = Math.pow(10, digits);
   return Math.round(x * k) / k;
-}
-
-function debugDump(det: FrameDetections, sal: Float32Array, odf: Float32Array, hopSec: number, range: string): void {
-  const [a, b] = range.split(",").map(Number);
-  for (let t = Math.round(a / hopSec); t <= Math.round(b / hopSec) && t < det.frames; t++) {
-    const parts: string[] = [];
-    for (let i = 0; i < det.count[t]; i++) {
-      const f = det.f0Hz[t * det.slots + i];
-      const m = 69 + 12 * Math.log2(f / 440);
-      parts.push(`${m.toFixed(2)}:${(20 * Math.log10(det.level[t * det.slots + i])).toFixed(0)}dB/${sal[t * det.slots + i].toFixed(3)}`);
-    }
-    console.error((t * hopSec).toFixed(2), odf[t].toFixed(2), parts.join("  "));
-  }
 }

@@ -1,4 +1,5 @@
 import "server-only";
+import type { AnalysisDto } from "@/lib/schemas/takes";
 import { and, asc, desc, eq, inArray, isNull, lt, or, sql } from "drizzle-orm";
 import { db, type Db } from "./client";
 import { newId } from "./ids";
@@ -18,18 +19,7 @@ type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 /** The database or a transaction on it, so an upload can enqueue inside its own transaction. */
 export type DbOrTx = Db | Tx;
 
-export type AnalysisDto = {
-  id: string;
-  takeId: string;
-  state: AnalysisState;
-  /** 0 … 100 */
-  progress: number;
-  error?: string;
-  settings: object;
-  createdAt: string;
-  startedAt?: string;
-  finishedAt?: string;
-};
+export type { AnalysisDto };
 
 export const CANCELLED = "Cancelled";
 
@@ -58,9 +48,9 @@ type Row = {
 };
 
 function toDto(row: Row): AnalysisDto {
-  let settings: object = {};
+  let settings: Record<string, unknown> = {};
   try {
-    settings = JSON.parse(row.settingsJson) as object;
+    settings = JSON.parse(row.settingsJson) as Record<string, unknown>;
   } catch {
     // stored by enqueueAnalysis, always JSON; an empty object is the safe reading otherwise
   }

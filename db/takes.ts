@@ -3,24 +3,13 @@ import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import { db } from "./client";
 import { newId } from "./ids";
 import { analysis, draft, project, revision, take } from "./schema";
-import { enqueueAnalysis, latestAnalysis, type AnalysisDto } from "./analyses";
+import { enqueueAnalysis, latestAnalysis } from "./analyses";
+import type { AnalysisDto, TakeDto } from "@/lib/schemas/takes";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import { deleteTakeFiles, storeFile } from "@/lib/storage/files";
 import type { NoteDto } from "@/lib/schemas/notes";
 
-export type TakeDto = {
-  id: string;
-  projectId: string;
-  name: string;
-  durationSec: number;
-  sampleRateHz: number;
-  channels: number;
-  originalMime: string;
-  originalBytes: number;
-  createdAt: string;
-  analysis: AnalysisDto | null;
-  noteCount: number | null;
-};
+export type { TakeDto };
 
 const takeColumns = {
   id: take.id,

@@ -49,6 +49,21 @@ const oggPath = path.join(process.cwd(), "tests", "e2e", "fixtures", "g3-b3-ster
   writeFileSync(fakePath, "This is a shopping list, not a recording.\n".repeat(20));
 }
 
+/** Signs in on the sign-in page as a demo account (README: password tapernote-demo). */
+async function signInAs(demoEmail: string) {
+  await page.fill("#email", demoEmail);
+  await page.fill("#password", "tapernote-demo");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(/\/projects/);
+}
+
+/** Signs out from any signed-in page and back in as another demo account. */
+async function switchTo(demoEmail: string) {
+  await page.getByRole("button", { name: "Sign out" }).first().click();
+  await page.waitForURL(/\/sign-in/);
+  await signInAs(demoEmail);
+}
+
 const email = `ada.quill.${Date.now()}@example.org`;
 let expectedBalance = 0;
 const projectName = "Wednesday theory group";
@@ -104,22 +119,14 @@ const failures = await runSteps([
     await shot(page, "07-signed-out");
   }],
   ["the demo owner sees the demo studio's members", async () => {
-    await page.fill("#email", "owner@example.com");
-    await page.fill("#password", "tapernote-demo");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/projects/);
+    await signInAs("owner@example.com");
     await page.getByRole("link", { name: "Grade 3 chord exercises" }).waitFor();
     await page.goto(`${app.baseUrl}/members`);
     await page.getByText("listener@example.com").waitFor();
     await shot(page, "08-members");
   }],
   ["the demo editor opens the demo project", async () => {
-    await page.getByRole("button", { name: "Sign out" }).first().click();
-    await page.waitForURL(/\/sign-in/);
-    await page.fill("#email", "editor@example.com");
-    await page.fill("#password", "tapernote-demo");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/projects/);
+    await switchTo("editor@example.com");
     await page.getByRole("link", { name: "Grade 3 chord exercises" }).click();
     await page.getByRole("heading", { name: "Grade 3 chord exercises" }).waitFor();
     await page.getByRole("heading", { name: "Upload takes" }).waitFor();
@@ -270,12 +277,7 @@ const failures = await runSteps([
     await shot(page, "17-api-keys");
   }],
   ["a listener sees the takes without upload or delete", async () => {
-    await page.getByRole("button", { name: "Sign out" }).first().click();
-    await page.waitForURL(/\/sign-in/);
-    await page.fill("#email", "listener@example.com");
-    await page.fill("#password", "tapernote-demo");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/projects/);
+    await switchTo("listener@example.com");
     await page.getByRole("link", { name: "Grade 3 chord exercises" }).click();
     await page.getByRole("table", { name: "Takes in this project" }).getByRole("link", { name: "g3-b3-stereo" }).waitFor();
     assert.equal(await page.getByRole("heading", { name: "Upload takes" }).count(), 0);
@@ -286,12 +288,7 @@ const failures = await runSteps([
     assert.equal(await page.getByRole("button", { name: "New API key" }).count(), 0);
   }],
   ["the owner buys a 25-pack through the test checkout; the balance rises by 25", async () => {
-    await page.getByRole("button", { name: "Sign out" }).first().click();
-    await page.waitForURL(/\/sign-in/);
-    await page.fill("#email", "owner@example.com");
-    await page.fill("#password", "tapernote-demo");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/projects/);
+    await switchTo("owner@example.com");
     await page.getByRole("link", { name: "Billing" }).click();
     const balance = page.getByTestId("balance");
     await balance.filter({ hasText: /\d/ }).waitFor();
@@ -313,12 +310,7 @@ const failures = await runSteps([
   }],
   ["an editor exports a MIDI file; the balance falls by one", async () => {
     await page.goto(`${app.baseUrl}/projects`);
-    await page.getByRole("button", { name: "Sign out" }).first().click();
-    await page.waitForURL(/\/sign-in/);
-    await page.fill("#email", "editor@example.com");
-    await page.fill("#password", "tapernote-demo");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/projects/);
+    await switchTo("editor@example.com");
     await page.getByRole("link", { name: "Grade 3 chord exercises" }).click();
     await page.getByRole("link", { name: /Chord exercise in C/ }).click();
     await page.getByRole("button", { name: "Export…" }).click({ timeout: 120_000 });

@@ -13,3 +13,4 @@ export { settingsSchema, parseSettings, type Settings, type SettingsInput } from
 export { transcribe, registerPlan, ANALYSIS_RATE_HZ, type Note, type Transcription } from "./transcribe";
 export { notesToMidi } from "./midi";
 export { noteMetrics, type ScoredNote, type NoteMetrics, type NoteMetricOptions } from "./metrics";
+export { chromaFrames } from "./chroma";

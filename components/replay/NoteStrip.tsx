@@ -3,7 +3,7 @@ import { useEffect, useRef, useState } from "react";
 import { readVoiceColours, voiceSlot } from "@/components/report/voices";
 import type { ReplayNote } from "./use-replay-player";
 
-const HEIGHT_PX = 132;
+const HEIGHT_PX = 168;
 
 /**
  * A small piano-roll strip: the take's notes as flat rounded rectangles coloured by voice,
@@ -38,8 +38,8 @@ export function NoteStrip({ notes, durationSec, positionSec, onSeek }: { notes: 
     const rule = style.getPropertyValue("--tn-rule").trim() || "#d9d3c7";
     const muted = style.getPropertyValue("--tn-ink-muted").trim() || "#5b6373";
     const colours = readVoiceColours(canvas);
-    const lo = Math.min(...notes.map((n) => n.pitch), 60) - 2;
-    const hi = Math.max(...notes.map((n) => n.pitch), 72) + 2;
+    const lo = Math.min(...notes.map((n) => n.pitch), 60) - 1;
+    const hi = Math.max(...notes.map((n) => n.pitch), 67) + 1;
     const rowH = (HEIGHT_PX - 4) / (hi - lo + 1);
     const y = (p: number) => 2 + (hi - p) * rowH;
     ctx.font = "9px var(--font-plex-mono), monospace";
@@ -83,7 +83,7 @@ export function NoteStrip({ notes, durationSec, positionSec, onSeek }: { notes: 
       <canvas
         ref={canvasRef}
         data-testid="note-strip"
-        className="block h-[132px] w-full cursor-pointer rounded-md border border-rule bg-paper"
+        className="block h-[168px] w-full cursor-pointer rounded-md border border-rule bg-paper"
         role="img"
         aria-label={`The take's ${notes.length} notes over time, coloured by voice, with the playhead`}
         onClick={(e) => {

@@ -32,6 +32,7 @@ export function useReplayPlayer(notes: ReplayNote[]) {
   const voices = useRef<Voices | null>(null);
   const queue = useRef<ReplayNote[]>([]);
   const next = useRef(0);
+  const scheduled = useRef(0);
   const timer = useRef<ReturnType<typeof setInterval> | null>(null);
   const frame = useRef<number | null>(null);
   const modeRef = useRef(mode);
@@ -89,7 +90,10 @@ export function useReplayPlayer(notes: ReplayNote[]) {
       if (n.offsetSec <= pos) continue;
       const start = Math.max(n.onsetSec, pos);
       v.synth.triggerAttackRelease(soundingHz(n.pitch, n.cents), Math.max(0.03, n.offsetSec - start), now + (start - pos), Math.max(0.15, Math.min(1, n.velocity / 127)));
+      scheduled.current++;
     }
+    // for the browser test and for anyone inspecting the page: how many notes went to the synthesiser
+    audio.dataset.notesScheduled = String(scheduled.current);
   }, []);
 
   /** Fresh voices and a queue from the recording's current position. */

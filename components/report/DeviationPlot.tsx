@@ -6,7 +6,7 @@ import type { ReportNote } from "./types";
 import { VoiceSwatch } from "./voices";
 
 const W = 720;
-const H = 132;
+const H = 118;
 const PAD = { left: 44, right: 10, top: 8, bottom: 22 };
 const GRID = [-50, -20, -5, 0, 5, 20, 50];
 
@@ -82,9 +82,11 @@ function VoicePlot({
               strokeWidth={c === 0 ? 1.2 : 0.6}
               strokeDasharray={c === 0 || Math.abs(c) === 50 ? undefined : "3 3"}
             />
-            <text x={PAD.left - 6} y={y(c) + 3} textAnchor="end" className="fill-ink-muted font-mono" fontSize={9}>
-              {c > 0 ? `+${c}` : c === 0 ? "0" : `\u2212${-c}`}
-            </text>
+            {Math.abs(c) === 5 ? null : (
+              <text x={PAD.left - 6} y={y(c) + 3} textAnchor="end" className="fill-ink-muted font-mono" fontSize={9}>
+                {c > 0 ? `+${c}` : c === 0 ? "0" : `\u2212${-c}`}
+              </text>
+            )}
           </g>
         ))}
         {ticks.map((t) => (

@@ -1,7 +1,7 @@
 "use client";
 import { Cents, centsCssColour, formatCents } from "@/components/ui";
 import { midiToNoteName } from "@/lib/music/pitch";
-import { formatClock } from "./format";
+import { formatClock, formatVibrato } from "./format";
 import type { CurveNote, ReportNote } from "./types";
 
 const W = 720;
@@ -40,8 +40,7 @@ export function PitchCurvePanel({
         <span data-testid="vibrato">
           {note.vibrato ? (
             <>
-              Vibrato <span className="font-mono">{note.vibrato.rateHz.toFixed(1)} Hz</span>, extent{" "}
-              <span className="font-mono">±{note.vibrato.extentCents.toFixed(1)} ¢</span>
+              Vibrato <span className="font-mono">{formatVibrato(note.vibrato)}</span>
             </>
           ) : (
             <span className="text-ink-muted">No vibrato measured</span>

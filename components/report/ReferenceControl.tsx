@@ -54,8 +54,8 @@ export function ReferenceControl({
           onChange(Math.round(hz * 100) / 100);
         }}
       >
-        <Field label="Other (Hz)" htmlFor="reference-other" error={error}>
-          <Input inputMode="decimal" value={other} onChange={(e) => setOther(e.target.value)} className="w-28 font-mono" placeholder="443" />
+        <Field label="Other (Hz)" htmlFor="reference-other" error={error} className="w-32">
+          <Input inputMode="decimal" value={other} onChange={(e) => setOther(e.target.value)} className="font-mono" placeholder="443" />
         </Field>
         <Button type="submit" variant="secondary" size="sm" className="mb-1" loading={busy && value !== null && !COMMON_HZ.includes(value as 440)}>
           Compare

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { useMemo } from "react";
 import { Button, Cents, DataTable, Mono, createDataTableColumns } from "@/components/ui";
 import { midiToNoteName } from "@/lib/music/pitch";
-import { formatAbsCents, formatClock, formatDrift, formatShare } from "./format";
+import { formatAbsCents, formatClock, formatDrift, formatShare, formatVibrato } from "./format";
 import type { ReportChord, ReportNote, TuningReportDto, VoiceSummary } from "./types";
 import { VoiceSwatch } from "./voices";
 
@@ -129,7 +129,7 @@ export function ReportNotesTable({ notes, selected, onSelect }: { notes: ReportN
           meta: { align: "end" },
           cell: (c) => {
             const v = c.row.original.vibrato;
-            return v ? <Mono>{v.rateHz.toFixed(1)} Hz ±{v.extentCents.toFixed(0)} ¢</Mono> : <span className="text-ink-muted">—</span>;
+            return v ? <Mono>{formatVibrato(v)}</Mono> : <span className="text-ink-muted">—</span>;
           },
         }),
         noteCol.display({

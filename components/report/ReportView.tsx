@@ -62,7 +62,7 @@ export function ReportView({ projectId, projectName, takeId }: { projectId: stri
                 Measured against A4 = <Mono className="text-ink" data-testid="report-reference">{formatHz(data.referenceHz)}</Mono>
               </span>
               <span>
-                The take’s own (as analysed, estimated where asked): <Mono className="text-ink">{formatHz(data.estimatedReferenceHz ?? null)}</Mono>
+                Estimated from the take: <Mono className="text-ink">{formatHz(data.estimatedReferenceHz ?? null)}</Mono>
               </span>
               <span>{projectName}</span>
             </span>

@@ -42,3 +42,11 @@ export function formatClock(seconds: number): string {
 export function formatHz(hz: number | null | undefined): string {
   return typeof hz === "number" && Number.isFinite(hz) ? `${hz.toFixed(1)} Hz` : "—";
 }
+
+/** A vibrato as "5.6 Hz, ±23.0 ¢"; the rate may be missing when the curve is too short to time it. */
+export function formatVibrato(v: { rateHz: number | null; extentCents: number | null } | null | undefined): string {
+  if (!v) return "—";
+  const rate = typeof v.rateHz === "number" && Number.isFinite(v.rateHz) ? `${v.rateHz.toFixed(1)} Hz` : "rate not measured";
+  const extent = typeof v.extentCents === "number" && Number.isFinite(v.extentCents) ? `±${v.extentCents.toFixed(1)} ¢` : "extent not measured";
+  return `${rate}, ${extent}`;
+}

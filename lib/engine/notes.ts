@@ -46,6 +46,8 @@ export interface TrackingConfig {
   attackFromOdf?: boolean;
   /** How far back (s) a late-detected note's attack may lie while its partials were present. */
   backtrackSec?: number;
+  /** The offset is the last frame's centre minus this fraction of the register's frame length: a frame still sees a note that ended up to half a frame before its centre. */
+  offsetFrameFraction?: number;
   /** Backtracking stops at an onset of at least this fraction of the detection function's 95th percentile. */
   backtrackOdf?: number;
   /** Notes this many dB under the take's loudest note are dropped. */
@@ -226,7 +228,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           hasOnset = bestRise >= (cfg.attackRiseDb ?? 10) || ((cfg.attackFromOdf ?? false) && snap >= 0 && odf[snap] >= splitOdf);
         }
       }
-      let offsetSec = t1 * hop - 0.25 * frameSec + hop;
+      let offsetSec = t1 * hop - (cfg.offsetFrameFraction ?? 0.5) * frameSec + hop;
       if (offsetSec < onsetSec + cfg.shortestNoteSec) offsetSec = onsetSec + cfg.shortestNoteSec;
       if ((t1 - t0 + 1) * hop < cfg.shortestNoteSec) continue;
       out.push({

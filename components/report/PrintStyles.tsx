@@ -24,7 +24,8 @@ export function PrintStyles({ paper }: { paper: Paper }) {
   h2 { break-after: avoid; }
   section { box-shadow: none !important; }
   table { font-size: 8.5pt; }
-  td, th { padding-top: 3px !important; padding-bottom: 3px !important; }
+  td, th { padding: 3px 5px !important; white-space: nowrap; }
+  th svg { display: none; }
   a { text-decoration: none; }
 }`;
   return <style>{css}</style>;

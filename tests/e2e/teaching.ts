@@ -150,7 +150,7 @@ export function teachingSteps({ page, baseUrl, shot }: TeachingContext): [string
       await thread.getByRole("button", { name: "Reply" }).click();
       await thread.getByLabel("Your reply").fill(REPLY);
       await thread.getByRole("button", { name: "Send reply" }).click();
-      await thread.getByText(REPLY).waitFor();
+      await thread.getByRole("list", { name: "Replies" }).getByText(REPLY).waitFor();
       await page.getByRole("radio", { name: "Both" }).click();
       await page.getByTestId("replay-play").click();
       await page.getByRole("button", { name: "Pause" }).waitFor();

@@ -72,7 +72,7 @@ export function teachingSteps({ page, baseUrl, shot }: TeachingContext): [string
       const worstLink = page.getByRole("link", { name: "Open in take" }).first();
       assert.match((await worstLink.getAttribute("href")) ?? "", /\/takes\/[^/]+\?t=\d+(\.\d+)?$/);
     }],
-    ["teaching: the teacher comments on a note (an empty comment is refused next to the field)", async () => {
+    ["teaching: the teacher comments on a note and on a time range (errors next to the fields), and deletes one", async () => {
       await page.goto(`${takeUrl}/replay`);
       await page.getByRole("heading", { name: /Replay/ }).waitFor();
       const form = page.getByRole("form", { name: "New comment" });
@@ -92,6 +92,21 @@ export function teachingSteps({ page, baseUrl, shot }: TeachingContext): [string
       await thread.waitFor();
       assert.match((await thread.textContent()) ?? "", third > 0 ? /Note E4 at/ : /Note [A-G]/);
       await shot(page, "t3-teacher-comment");
+      // a comment on a time range: the end must come after the start; then it is deleted again
+      const range = "Keep the tempo steady through these two chords.";
+      await form.getByLabel("About").selectOption("range");
+      await form.getByLabel("From (s)").fill("5");
+      await form.getByLabel("To (s)").fill("3");
+      await form.getByLabel("Comment").fill(range);
+      await form.getByRole("button", { name: "Add comment" }).click();
+      await page.locator("#comment-end-error").waitFor();
+      await form.getByLabel("To (s)").fill("7.5");
+      await form.getByRole("button", { name: "Add comment" }).click();
+      const rangeThread = page.getByTestId("comment-thread").filter({ hasText: range });
+      await rangeThread.getByText("0:05.00–0:07.50").waitFor();
+      await rangeThread.getByRole("button", { name: "Delete" }).click();
+      await page.getByRole("button", { name: "Delete comment" }).click();
+      await rangeThread.waitFor({ state: "detached" });
     }],
     ["teaching: the teacher makes a share link, shown once", async () => {
       await page.goto(takeUrl);

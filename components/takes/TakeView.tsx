@@ -15,6 +15,7 @@ import { TakePlayer } from "./TakePlayer";
 import { isRunning } from "./types";
 import { useDeleteTake } from "./use-delete-take";
 import { ExportDialog } from "@/components/export/ExportDialog";
+import { TakeTeachingPanel } from "./TakeTeachingPanel";
 import { useNotes } from "./use-notes";
 import { useTake } from "./use-take";
 
@@ -140,6 +141,8 @@ export function TakeView({
           </p>
         )}
       </Card>
+
+      <TakeTeachingPanel takeId={t.id} projectId={projectId} canEdit={canEdit} />
 
       <Card title="Analyses" description="Every run of the engine over this take, newest first." flush>
         <div className="px-5 pb-4">

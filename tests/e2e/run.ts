@@ -5,6 +5,7 @@ import os from "node:os";
 import path from "node:path";
 import wf from "wavefile";
 import { openBrowser, runSteps, shot, startApp } from "./harness";
+import { teachingSteps } from "./teaching";
 
 const { WaveFile } = wf;
 
@@ -325,6 +326,7 @@ const failures = await runSteps([
     await page.getByTestId("balance").filter({ hasText: String(expectedBalance - 1) }).waitFor();
     await shot(page, "23-billing-after-export");
   }],
+  ...teachingSteps({ page, baseUrl: app.baseUrl, shot }),
   ["no CSP violations or page errors", async () => {
     assert.deepEqual(errors.filter((e) => !/favicon/.test(e)), []);
   }],

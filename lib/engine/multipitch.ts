@@ -1,9 +1,9 @@
 /**
  * Concurrent pitches of one frame from its spectral peaks: harmonic-amplitude summation with
  * iterative estimation and cancellation (A. Klapuri, "Multiple fundamental frequency estimation
- * by summing harmonic amplitudes", ISMIR 2006), cancelling each detected sound with the
- * spectral-smoothness estimate of its partials (A. Klapuri, "Multiple fundamental frequency
- * estimation based on harmonicity and spectral smoothness", IEEE TSAP 11(6), 2003).
+ * by summing harmonic amplitudes", ISMIR 2006); octave and twelfth pairs are checked with
+ * the spectral-smoothness principle (A. Klapuri, "Multiple fundamental frequency estimation
+ * based on harmonicity and spectral smoothness", IEEE TSAP 11(6), 2003).
  *
  * Salience of a candidate fundamental f0 (one candidate per equal-tempered semitone at
  * A4 = 440 Hz, each searched ±50 cents so mistuned voices are found):
@@ -11,9 +11,9 @@
  * with r_h the largest residual peak amplitude within the window of harmonic h,
  * α = 52 Hz, β = 320 Hz (Klapuri 2006, 93 ms frames), γ = amplitude compression.
  * The best candidate is refined (anchor partial, then partials within a tolerance that widens
- * with h for string inharmonicity, f_h = h·f0·√(1 + B h²)), its partials are cancelled
- * from the residual (amplitude min(a_h, mean of a_{h−1}, a_h, a_{h+1})), and the search
- * repeats while the salience stays within `sensitivityDb` of the first voice.
+ * with h for string inharmonicity, f_h = h·f0·√(1 + B h²)), its partials (up to 40) are
+ * removed from the residual, and the search repeats while the salience stays within
+ * `sensitivityDb` of the first voice.
  */
 export interface MultiPitchConfig {
   lowMidi: number;
@@ -26,8 +26,6 @@ export interface MultiPitchConfig {
   gamma?: number;
   alphaHz?: number;
   betaHz?: number;
-  /** Cancellation: a partial keeps what exceeds κ × its neighbours' mean (spectral smoothness). */
-  kappa?: number;
   /** Salience factor for a candidate supported by one peak only. */
   lonePenalty?: number;
   /** Octave/twelfth check: the upper voice stays when its partials exceed κ × the lower voice's neighbours. */
@@ -67,7 +65,7 @@ export class MultiPitchEstimator {
   private readonly cur: Uint8Array;
 
   constructor(cfg: MultiPitchConfig, maxPeaks: number) {
-    this.cfg = { maxHarmonics: 10, gamma: 0.5, alphaHz: 52, betaHz: 320, kappa: 2, lonePenalty: 0.3, octaveKappa: 2, continuityBonus: 1.3, subPenalty: 0, ...cfg };
+    this.cfg = { maxHarmonics: 10, gamma: 0.5, alphaHz: 52, betaHz: 320, lonePenalty: 0.3, octaveKappa: 2, continuityBonus: 1.3, subPenalty: 0, ...cfg };
     this.nCand = this.cfg.highMidi - this.cfg.lowMidi + 1;
     this.H = this.cfg.maxHarmonics;
     this.centre = new Float32Array(this.nCand * this.H);
@@ -209,25 +207,14 @@ export class MultiPitchEstimator {
         ma[h] = k >= 0 ? r[k] : 0;
         if (h < H) e += ma[h] * ma[h];
       }
-      const kappa = this.cfg.kappa;
+      // cancel the detected sound: its matched partials leave the residual. (Leaving the excess
+      // of partials far above their neighbours — Klapuri's spectral smoothness — scored lower on
+      // the dev split; octave and twelfth doublings are judged by dropOctaveShadows instead.)
       for (let h = 0; h < HM; h++) {
         const k = this.matched[h];
         if (k < 0) continue;
-        // spectral smoothness: a partial far above its neighbours' envelope keeps the excess,
-        // which is where a second sound (an octave, a twelfth) hides
-        let env = 0;
-        let cnt = 0;
-        if (h > 0 && this.matched[h - 1] >= 0) {
-          env += ma[h - 1];
-          cnt++;
-        }
-        if (h + 1 < HM && this.matched[h + 1] >= 0) {
-          env += ma[h + 1];
-          cnt++;
-        }
-        const est = cnt === 0 || h === 0 ? ma[h] : Math.min(ma[h], kappa * Math.max(env / cnt, 0.5 * ma[h]));
-        r[k] = Math.max(0, r[k] - est);
-        rc[k] = gamma === 0.5 ? Math.sqrt(r[k]) : Math.pow(r[k], gamma);
+        r[k] = 0;
+        rc[k] = 0;
       }
       outF0Hz[outOffset + count] = f0;
       outLevel[outOffset + count] = Math.sqrt(e);

@@ -348,8 +348,8 @@ export function vibrato(curve: PitchCurve, options: VibratoOptions = {}): Vibrat
   const delta = denom !== 0 ? (0.5 * (r[bestLag - 1] - r[bestLag + 1])) / denom : 0;
   const periodSec = (bestLag + delta) * dt;
   const rateHz = 1 / periodSec;
-  if (rateHz < minRateHz || rateHz > maxRateHz || n * dt < 2 * periodSec) return null;
+  if (!Number.isFinite(rateHz) || rateHz < minRateHz || rateHz > maxRateHz || n * dt < 2 * periodSec) return null;
   const extentCents = Math.SQRT2 * Math.sqrt(r0);
-  if (extentCents < minExtentCents) return null;
+  if (!Number.isFinite(extentCents) || extentCents < minExtentCents) return null;
   return { rateHz: round(rateHz, 3), extentCents: round(extentCents, 2) };
 }

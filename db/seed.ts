@@ -97,7 +97,7 @@ export async function seedDemoTakes(database: Db): Promise<number> {
       name: demo.name,
       createdByUserId: owner.id,
       original: { bytes, ext: "flac", mime: "audio/flac" },
-      decoded: { durationSec: decoded.durationSec, sampleRateHz: decoded.sampleRateHz, channels: decoded.channels },
+      decoded: { durationSec: decoded.durationSec, sampleRateHz: decoded.sourceRateHz, channels: decoded.channels },
       settings: {},
     });
     added++;

@@ -1,5 +1,5 @@
 import "server-only";
-import { decodeAudio, EngineError } from "@/lib/engine";
+import { ANALYSIS_RATE_HZ, decodeAudio, EngineError } from "@/lib/engine";
 import { uploadLimits } from "@/lib/config";
 import { AppError } from "@/lib/errors";
 import { sniffAudio } from "@/lib/storage/sniff";
@@ -76,7 +76,8 @@ export async function readUpload(request: Request): Promise<Omit<NewTake, "studi
 
   let decoded;
   try {
-    decoded = await decodeAudio(analysisBytes, { maxDurationSec: limits.maxDurationSec });
+    // checked at the analysis rate, so a long upload does not hold a full-rate copy in memory
+    decoded = await decodeAudio(analysisBytes, { maxDurationSec: limits.maxDurationSec, resampleToHz: ANALYSIS_RATE_HZ });
   } catch (e) {
     if (e instanceof EngineError) {
       if (e.code === "too_long") {
@@ -102,7 +103,7 @@ export async function readUpload(request: Request): Promise<Omit<NewTake, "studi
     name: takeName(form.get("name"), file.name || "take"),
     original: { bytes: originalBytes, ext: kind.ext, mime: kind.mime },
     analysisFile,
-    decoded: { durationSec: decoded.durationSec, sampleRateHz: decoded.sampleRateHz, channels: decoded.channels },
+    decoded: { durationSec: decoded.durationSec, sampleRateHz: decoded.sourceRateHz, channels: decoded.channels },
     settings,
   };
 }

@@ -4,7 +4,7 @@
  * thread to cancel. Nothing here touches the database.
  */
 import { parentPort } from "node:worker_threads";
-import { decodeAudio, transcribe, EngineError, type SettingsInput } from "../engine/index";
+import { ANALYSIS_RATE_HZ, decodeAudio, transcribe, EngineError, type SettingsInput } from "../engine/index";
 import { readStored } from "../storage/files";
 import type { WorkerFailure } from "./messages";
 
@@ -29,7 +29,8 @@ async function run(request: RunRequest): Promise<WorkerReply> {
   const post = (reply: WorkerReply) => parentPort!.postMessage(reply);
   try {
     const bytes = await readStored(request.analysisKey);
-    const audio = await decodeAudio(bytes, { maxDurationSec: request.maxDurationSec });
+    // decoded straight to the analysis rate, block by block: a long take never exists at full rate
+    const audio = await decodeAudio(bytes, { maxDurationSec: request.maxDurationSec, resampleToHz: ANALYSIS_RATE_HZ });
     post({ type: "progress", analysisId, fraction: DECODED });
     const result = await transcribe(audio.samples, audio.sampleRateHz, request.settings as SettingsInput, (f) =>
       post({ type: "progress", analysisId, fraction: DECODED + (1 - DECODED) * 0.99 * f }),

@@ -1,8 +1,6 @@
 "use client";
-import { useState, type FormEvent } from "react";
 import { Alert, Button, Field, Input, Select } from "@/components/ui";
-import { ApiClientError, firstErrors } from "@/lib/client/api";
-import { formValues, validate, type FormErrors } from "@/lib/client/forms";
+import { useZodForm } from "@/lib/client/use-zod-form";
 import { ROLES, ROLE_DESCRIPTION, ROLE_LABEL, ROLE_RANK, type Role } from "@/lib/auth/permissions";
 import { createApiKeySchema, type CreateApiKeyInput } from "./types";
 
@@ -17,29 +15,10 @@ export function CreateApiKeyForm({
   onCancel: () => void;
 }) {
   const roles = ROLES.filter((r) => ROLE_RANK[r] <= ROLE_RANK[myRole]);
-  const [errors, setErrors] = useState<FormErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  async function submit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setFormError(null);
-    const result = validate(createApiKeySchema, formValues(event.currentTarget));
-    if (!result.ok) return setErrors(result.errors);
-    setErrors({});
-    setBusy(true);
-    try {
-      await onSubmit(result.data);
-    } catch (e) {
-      if (e instanceof ApiClientError && e.fields) setErrors(firstErrors(e.fields));
-      setFormError(e instanceof Error ? e.message : "The key could not be created.");
-    } finally {
-      setBusy(false);
-    }
-  }
+  const { errors, formError, busy, handleSubmit } = useZodForm(createApiKeySchema, onSubmit, "The key could not be created.");
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" aria-label="Create API key">
+    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Create API key">
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <Field label="Name" htmlFor="api-key-name" error={errors.name} hint="What the key is for, e.g. “Nightly export script”.">
         <Input name="name" autoFocus maxLength={80} />

@@ -17,7 +17,6 @@ const nextConfig = {
     "smtp-server",
     "mailparser",
     "nodemailer",
-    "@alexanderolsen/libsamplerate-js",
     "@wasm-audio-decoders/flac",
     "@echogarden/speex-resampler-wasm",
     // UMD/CommonJS packages the engine and the export writers import as default exports

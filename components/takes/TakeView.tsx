@@ -1,7 +1,7 @@
 "use client";
 import { useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
-import { useRouter } from "next/navigation";
+import { useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { Alert, Button, Card, ConfirmDialog, EmptyState, Mono, PageHeader, Spinner } from "@/components/ui";
 import { ApiClientError } from "@/lib/client/api";
@@ -16,6 +16,7 @@ import { isRunning } from "./types";
 import { useDeleteTake } from "./use-delete-take";
 import { ExportDialog } from "@/components/export/ExportDialog";
 import { TakeTeachingPanel } from "./TakeTeachingPanel";
+import { FocusedNotes } from "./FocusedNotes";
 import { useNotes } from "./use-notes";
 import { useTake } from "./use-take";
 
@@ -37,6 +38,8 @@ export function TakeView({
 }) {
   const router = useRouter();
   const queryClient = useQueryClient();
+  const focusParam = useSearchParams().get("t");
+  const focusSec = focusParam !== null && Number.isFinite(Number(focusParam)) && Number(focusParam) >= 0 ? Number(focusParam) : null;
   const take = useTake(takeId);
   const notes = useNotes(takeId);
   const remove = useDeleteTake();
@@ -134,7 +137,10 @@ export function TakeView({
             {notes.error.message}
           </Alert>
         ) : notes.data ? (
-          <NotesTable notes={notes.data} />
+          <div className="space-y-3">
+            {focusSec !== null ? <FocusedNotes notes={notes.data.notes} atSec={focusSec} /> : null}
+            <NotesTable notes={notes.data} />
+          </div>
         ) : (
           <p className="text-sm text-ink-muted">
             {isRunning(analysis) ? "The notes appear here when the analysis is ready." : analysis?.state === "failed" ? "No notes: the analysis failed." : "No notes yet."}

@@ -99,7 +99,7 @@ async function main() {
     console.log(`  latency p50 ${pct(uploadLatencies, 50).toFixed(0)} ms, p95 ${pct(uploadLatencies, 95).toFixed(0)} ms, errors ${uploadErrors}`);
     console.log(`note reads: ${READ_CONNECTIONS} connections for ${READ_SECONDS} s while jobs ran (autocannon)`);
     console.log(`  ${readResult.requests.total} requests, p50 ${readResult.latency.p50} ms, p90 ${readResult.latency.p90} ms, p97.5 ${readResult.latency.p97_5} ms (so p95 ≤ that), errors ${readErrors}`);
-    console.log(`  status codes: ${JSON.stringify(readResult.statusCodeStats)}`);
+    console.log(`  status codes: ${JSON.stringify(readResult.statusCodeStats)}; connection errors ${readResult.errors}, timeouts ${readResult.timeouts}, resets ${readResult.resets}`);
     console.log(`jobs: ${ready}/${UPLOADS} ready, ${withNotes}/${UPLOADS} with notes, lost ${UPLOADS - uploadedIds.length + [...states.values()].filter((s) => s === "missing").length}`);
     console.log(`wall time ${((Date.now() - started) / 1000).toFixed(0)} s`);
     const ok = uploadErrors === 0 && readErrors === 0 && ready === UPLOADS && withNotes === UPLOADS;

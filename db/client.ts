@@ -18,6 +18,26 @@ const WRITE_SQL = /^\s*(insert|update|delete|replace|create|drop|alter|with|prag
  * straight to the pool (WAL lets them run beside a writer). Other processes (the job runner)
  * wait for the lock in SQLite's busy handler, which works across processes.
  */
+/**
+ * SQLite's own busy handler waits synchronously, which would freeze this process's event loop
+ * while another process (the job runner) holds the write lock. So connections get a short busy
+ * timeout and a busy write is retried here, asynchronously, with back-off (about 10 s in all).
+ */
+const SHORT_BUSY_MS = 25;
+async function retryBusy<T>(run: () => Promise<T>): Promise<T> {
+  let waitMs = 5;
+  for (let spent = 0; ; spent += waitMs, waitMs = Math.min(200, waitMs * 2)) {
+    try {
+      return await run();
+    } catch (e) {
+      const code = (e as { code?: string; rawCode?: number }).code ?? "";
+      const busy = code === "SQLITE_BUSY" || code.startsWith("SQLITE_BUSY") || (e as { rawCode?: number }).rawCode === 5;
+      if (!busy || spent > 10_000) throw e;
+      await new Promise((r) => setTimeout(r, waitMs));
+    }
+  }
+}
+
 function serialiseWrites(client: Client): Client {
   let tail: Promise<void> = Promise.resolve();
   const lock = async (): Promise<() => void> => {
@@ -37,7 +57,7 @@ function serialiseWrites(client: Client): Client {
   const locked = async <T>(run: () => Promise<T>): Promise<T> => {
     const release = await lock();
     try {
-      return await run();
+      return await retryBusy(run);
     } finally {
       release();
     }
@@ -58,7 +78,8 @@ function serialiseWrites(client: Client): Client {
           const release = await lock();
           let tx: Transaction;
           try {
-            tx = await target.transaction(mode);
+            // BEGIN IMMEDIATE takes the write lock at once, so only the BEGIN can meet a busy database
+            tx = await retryBusy(() => target.transaction(mode));
           } catch (e) {
             release();
             throw e;
@@ -101,11 +122,12 @@ export function openDb(url: string, authToken?: string): Db {
     const filePath = url.slice("file:".length);
     if (filePath && filePath !== ":memory:") mkdirSync(path.dirname(filePath), { recursive: true });
   }
-  // The busy timeout applies to every pooled connection and waits out short write locks;
+  // A short busy timeout on every pooled connection, and async retries of busy writes (above);
   // WAL (set once by migrateDb, it persists in the file) lets readers run while a job writes.
   // libSQL connections enforce foreign keys by default.
-  const raw = createClient({ url, authToken, timeout: 5000 });
-  const client = url.startsWith("file:") ? serialiseWrites(raw) : raw;
+  const local = url.startsWith("file:");
+  const raw = createClient({ url, authToken, timeout: local ? SHORT_BUSY_MS : 5000 });
+  const client = local ? serialiseWrites(raw) : raw;
   return drizzle(client, { schema }) as Db;
 }
 

@@ -273,3 +273,16 @@ export function pasteNotes(notes: NoteList, clipboard: Clipboard, atSec: number,
   );
   return [...notes, ...pasted];
 }
+
+/** The next note of the same pitch after this one (by onset): the join tool's partner. */
+export function nextOfPitch(notes: NoteList, id: string): EditorNote | undefined {
+  const n = notes.find((x) => x.id === id);
+  if (!n) return undefined;
+  let best: EditorNote | undefined;
+  for (const x of notes) {
+    if (x.id === n.id || x.pitch !== n.pitch || x.onsetSec < n.onsetSec) continue;
+    if (x.onsetSec === n.onsetSec && x.id < n.id) continue;
+    if (!best || x.onsetSec < best.onsetSec) best = x;
+  }
+  return best;
+}

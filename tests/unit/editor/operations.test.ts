@@ -7,6 +7,7 @@ import {
   freshIds,
   joinNotes,
   moveNotes,
+  nextOfPitch,
   pasteNotes,
   removeNotes,
   resetCents,
@@ -231,5 +232,17 @@ describe("copyNotes / pasteNotes", () => {
     const notes = base();
     expect(copyNotes(notes, [])).toEqual({ notes: [], spanSec: 0 });
     expect(pasteNotes(notes, copyNotes(notes, []), 1)).toBe(notes);
+  });
+});
+
+describe("nextOfPitch (the join tool's partner)", () => {
+  it("finds the next note of the same pitch by onset", () => {
+    const notes = frozen([...base(), note("n9", 3, 3.5, 60), note("n8", 0, 0.2, 60)]);
+    expect(nextOfPitch(notes, "n1")?.id).toBe("n3");
+    expect(nextOfPitch(notes, "n3")?.id).toBe("n9");
+    expect(nextOfPitch(notes, "n9")).toBeUndefined();
+    expect(nextOfPitch(notes, "n2")).toBeUndefined();
+    expect(nextOfPitch(notes, "nope")).toBeUndefined();
+    expect(canJoin(notes, "n1", nextOfPitch(notes, "n1")!.id)).toBe(true);
   });
 });

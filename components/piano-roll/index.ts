@@ -1,0 +1,1 @@
+export { PianoRoll, type PianoRollProps, type PianoRollTool } from "./PianoRoll";

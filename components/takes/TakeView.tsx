@@ -17,6 +17,7 @@ import { useDeleteTake } from "./use-delete-take";
 import { ExportDialog } from "@/components/export/ExportDialog";
 import { TakeTeachingPanel } from "./TakeTeachingPanel";
 import { FocusedNotes } from "./FocusedNotes";
+import { TakePianoRoll } from "./TakePianoRoll";
 import { useNotes } from "./use-notes";
 import { useTake } from "./use-take";
 
@@ -119,6 +120,12 @@ export function TakeView({
       <Card title="Original recording">
         <TakePlayer takeId={t.id} takeName={t.name} />
       </Card>
+
+      {notes.data && notes.data.notes.length > 0 ? (
+        <Card title="Piano roll">
+          <TakePianoRoll notes={notes.data.notes} durationSec={t.durationSec} />
+        </Card>
+      ) : null}
 
       <Card
         title="Notes"

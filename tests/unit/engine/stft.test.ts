@@ -2,17 +2,7 @@ import { describe, it, expect } from "vitest";
 import { SpectrumPlan } from "@/lib/engine/stft";
 import { findPeaks, PeakScratch } from "@/lib/engine/peaks";
 import type { TaperName } from "@/lib/engine/tapers";
-
-/** Seeded PRNG (mulberry32), so failures reproduce. */
-function rng(seed: number) {
-  return () => {
-    seed |= 0;
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng } from "../../support/random";
 
 describe("FFT stage against a direct DFT (definition X(k) = Σ x[n] e^{−2πikn/M})", () => {
   for (const [N, M] of [[64, 64], [100, 128], [256, 512]]) {

@@ -6,23 +6,12 @@ import { fileURLToPath } from "node:url";
 import { parseMidi } from "midi-file";
 import { afterAll, describe, expect, it } from "vitest";
 import { estimateTempoBpm, notesToSmf, type ExportNote } from "@/lib/export";
+import { rng } from "../../support/random";
 
 // Outside checks: the file is read back by midi-file 1.2.4 (npm) and, where Debian's python3-mido is
 // installed, by mido; expected values come from the MIDI 1.0 specification (REFERENCES.md §6):
 // header MThd format/tracks/division, tempo FF 51 in µs per quarter, time signature FF 58,
 // pitch bend 14-bit around 8192 with its range set by RPN 0 (CC101 0, CC100 0, CC6, CC38).
-
-/** Deterministic uniform numbers in [0, 1) (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Voices that never overlap themselves (as the engine writes them), with odd times and cents. */
 function takeNotes(seed: number, voices: number[] = [1, 2, 3]): ExportNote[] {

@@ -5,6 +5,7 @@ import { join } from "node:path";
 import { XMLParser, XMLValidator } from "fast-xml-parser";
 import { describe, expect, it } from "vitest";
 import { notesToMusicXml, writeMusicXml, MUSICXML_PUBLIC_ID, MUSICXML_SYSTEM_ID, type ExportNote } from "@/lib/export";
+import { rng } from "../../support/random";
 
 // Outside checks: the score is read back by fast-xml-parser 5.12.1, a general-purpose XML parser
 // (npm), and checked against the MusicXML 4.0 reference (W3C Music Notation Community Group;
@@ -15,18 +16,6 @@ import { notesToMusicXml, writeMusicXml, MUSICXML_PUBLIC_ID, MUSICXML_SYSTEM_ID,
 // (searched `apt-cache search musicxml` and the npm package list; Debian's musescore3-common 3.2.3
 // predates MusicXML 4.0 and ships no schema), so the schema check below runs only when MUSICXML_XSD
 // names a local copy of musicxml.xsd; otherwise the structural checks here stand in for it.
-
-/** Deterministic uniform numbers in [0, 1) (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Voice 1: a melody with chords; voice 2: notes that overlap each other; voice 4: long notes across barlines. */
 function takeNotes(seed: number): ExportNote[] {

@@ -1,17 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { DEFAULT_TEMPO_BPM, estimateTempoBpm, TEMPO_MAX_BPM, TEMPO_MIN_BPM } from "@/lib/export";
-
-/** Deterministic uniform numbers in [0, 1) (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng } from "../../support/random";
 
 // A melody-and-chords rhythm in beats: mostly quarters, some eighths, halves and a dotted quarter;
 // every fourth event is a three-note chord.

@@ -9,17 +9,7 @@ import {
   subsequenceDtw,
   type AlignNote,
 } from "@/lib/music/align";
-
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng } from "../../support/random";
 
 /** An invented exercise: four-part chords (I–vi–IV–V7 twice, each held 1 s) under a melody in eighths. */
 function exercise(): AlignNote[] {

@@ -3,18 +3,7 @@ import { leastSquaresSlope, tuningReport, vibrato, type ReportInputNote } from "
 import { ratioToCents } from "@/lib/music/intervals";
 import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
-
-/** Deterministic noise (mulberry32), so the tests are repeatable. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng } from "../../support/random";
 
 const note = (pitch: number, cents: number, voice: number, onsetSec = 0, offsetSec = 2): ReportInputNote => ({
   onsetSec,

@@ -4,6 +4,7 @@ import { can, type Action, type Role } from "./permissions";
 import { resolveApiKey } from "@/db/api-keys";
 import { getMembership, listMemberships, type Membership } from "@/db/studios";
 import { AppError, forbidden, unauthorized } from "@/lib/errors";
+import { isProductionEnv } from "@/lib/env";
 
 /** The cookie that names the studio chosen in the studio switcher. */
 export const ACTIVE_STUDIO_COOKIE = "tapernote_studio";
@@ -91,4 +92,15 @@ export function requireRole(actor: Actor, action: Action): void {
 /** True when the user is a member of the studio (for switching studios). */
 export async function isMember(userId: string, studioId: string): Promise<boolean> {
   return (await getMembership(userId, studioId)) !== null;
+}
+
+/** Makes a studio the one the browser session acts in (the studio switcher's cookie). */
+export function setActiveStudio(response: { cookies: { set: (name: string, value: string, options: object) => unknown } }, studioId: string): void {
+  response.cookies.set(ACTIVE_STUDIO_COOKIE, studioId, {
+    httpOnly: true,
+    sameSite: "lax",
+    secure: isProductionEnv(),
+    path: "/",
+    maxAge: 60 * 60 * 24 * 365,
+  });
 }

@@ -1,8 +1,7 @@
 import { NextResponse } from "next/server";
 import { createStudio } from "@/db/studios";
 import { parseJson, route } from "@/lib/api/respond";
-import { ACTIVE_STUDIO_COOKIE, sessionUser } from "@/lib/auth/actor";
-import { isProductionEnv } from "@/lib/env";
+import { sessionUser, setActiveStudio } from "@/lib/auth/actor";
 import { unauthorized } from "@/lib/errors";
 import { studioNameSchema } from "@/lib/schemas/members";
 
@@ -13,12 +12,6 @@ export const POST = route(async (request) => {
   const { name } = await parseJson(request, studioNameSchema);
   const studio = await createStudio(name, user.id);
   const response = NextResponse.json({ studio, role: "owner" }, { status: 201 });
-  response.cookies.set(ACTIVE_STUDIO_COOKIE, studio.id, {
-    httpOnly: true,
-    sameSite: "lax",
-    secure: isProductionEnv(),
-    path: "/",
-    maxAge: 60 * 60 * 24 * 365,
-  });
+  setActiveStudio(response, studio.id);
   return response;
 });

@@ -2,8 +2,7 @@ import { NextResponse } from "next/server";
 import { z } from "zod";
 import { acceptInvitation } from "@/db/studios";
 import { parseJson, route } from "@/lib/api/respond";
-import { ACTIVE_STUDIO_COOKIE, sessionUser } from "@/lib/auth/actor";
-import { isProductionEnv } from "@/lib/env";
+import { sessionUser, setActiveStudio } from "@/lib/auth/actor";
 import { unauthorized } from "@/lib/errors";
 
 /** Accepts an invitation for the signed-in user and makes its studio the active one. */
@@ -13,12 +12,6 @@ export const POST = route(async (request) => {
   const { token } = await parseJson(request, z.object({ token: z.string().min(10).max(200) }));
   const { studioId } = await acceptInvitation(token, user.id, user.email);
   const response = NextResponse.json({ studioId });
-  response.cookies.set(ACTIVE_STUDIO_COOKIE, studioId, {
-    httpOnly: true,
-    sameSite: "lax",
-    secure: isProductionEnv(),
-    path: "/",
-    maxAge: 60 * 60 * 24 * 365,
-  });
+  setActiveStudio(response, studioId);
   return response;
 });

@@ -2,8 +2,7 @@ import { NextResponse } from "next/server";
 import { z } from "zod";
 import { getMembership } from "@/db/studios";
 import { parseJson, route } from "@/lib/api/respond";
-import { ACTIVE_STUDIO_COOKIE, sessionUser } from "@/lib/auth/actor";
-import { isProductionEnv } from "@/lib/env";
+import { sessionUser, setActiveStudio } from "@/lib/auth/actor";
 import { notFound, unauthorized } from "@/lib/errors";
 
 /** Chooses the studio the browser session acts in (the studio switcher). */
@@ -14,12 +13,6 @@ export const PUT = route(async (request) => {
   const membership = await getMembership(user.id, studioId);
   if (!membership) throw notFound("This studio");
   const response = NextResponse.json({ studio: { id: membership.studioId, name: membership.studioName }, role: membership.role });
-  response.cookies.set(ACTIVE_STUDIO_COOKIE, membership.studioId, {
-    httpOnly: true,
-    sameSite: "lax",
-    secure: isProductionEnv(),
-    path: "/",
-    maxAge: 60 * 60 * 24 * 365,
-  });
+  setActiveStudio(response, membership.studioId);
   return response;
 });

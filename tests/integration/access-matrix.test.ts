@@ -33,8 +33,7 @@ async function newProject(): Promise<string> {
 async function newMember(): Promise<string> {
   const email = `member${++seq}@example.net`;
   const cookie = await signUpVerified(email);
-  const { invitation } = await asOwner("POST", "/api/v1/invitations", { email, role: "listener" });
-  void invitation;
+  await asOwner("POST", "/api/v1/invitations", { email, role: "listener" });
   const { readMailbox } = await import("@/lib/mail/mailbox");
   const [mail] = (await readMailbox({ to: email })).filter((m) => m.subject.startsWith("Invitation"));
   const token = decodeURIComponent(mail!.text.match(/invitations\/(\S+)/)![1]!);

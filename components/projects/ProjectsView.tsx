@@ -4,7 +4,7 @@ import { useMemo, useState } from "react";
 import {
   Alert,
   Button,
-  ConfirmDialog,
+  DeleteForGoodDialog,
   DataTable,
   Dialog,
   EmptyState,
@@ -30,7 +30,6 @@ export function ProjectsView({ studioName, canEdit }: { studioName: string; canE
   const [creating, setCreating] = useState(false);
   const [renaming, setRenaming] = useState<ProjectDto | null>(null);
   const [deleting, setDeleting] = useState<ProjectDto | null>(null);
-  const [deleteError, setDeleteError] = useState<string | null>(null);
 
   const columns = useMemo(
     () =>
@@ -59,7 +58,7 @@ export function ProjectsView({ studioName, canEdit }: { studioName: string; canE
                 <Button size="sm" variant="ghost" onClick={() => setRenaming(row.original)} aria-label={`Rename ${row.original.name}`}>
                   Rename
                 </Button>
-                <Button size="sm" variant="ghost" onClick={() => { setDeleteError(null); setDeleting(row.original); }} aria-label={`Delete ${row.original.name}`}>
+                <Button size="sm" variant="ghost" onClick={() => setDeleting(row.original)} aria-label={`Delete ${row.original.name}`}>
                   Delete
                 </Button>
               </div>
@@ -124,28 +123,13 @@ export function ProjectsView({ studioName, canEdit }: { studioName: string; canE
         ) : null}
       </Dialog>
 
-      <ConfirmDialog
-        open={!!deleting}
+      <DeleteForGoodDialog
+        item={deleting}
         title="Delete this project?"
-        message={
-          <>
-            <strong>{deleting?.name}</strong> and everything in it will be deleted for good. This cannot be undone.
-            {deleteError ? <span className="mt-2 block text-sharp" role="alert">{deleteError}</span> : null}
-          </>
-        }
-        confirmLabel="Delete for good"
-        danger
-        busy={remove.isPending}
+        message={(p) => <><strong>{p.name}</strong> and everything in it will be deleted for good. This cannot be undone.</>}
         onCancel={() => setDeleting(null)}
-        onConfirm={async () => {
-          if (!deleting) return;
-          try {
-            await remove.mutateAsync(deleting.id);
-            setDeleting(null);
-          } catch (e) {
-            setDeleteError(e instanceof Error ? e.message : "Deleting failed.");
-          }
-        }}
+        onDelete={(p) => remove.mutateAsync(p.id)}
+        onDeleted={() => setDeleting(null)}
       />
     </div>
   );

@@ -3,7 +3,7 @@ import { useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useMemo, useRef, useState } from "react";
-import { Alert, Button, Card, ConfirmDialog, EmptyState, Mono, PageHeader, Spinner } from "@/components/ui";
+import { Alert, Button, Card, DeleteForGoodDialog, EmptyState, Mono, PageHeader, Spinner } from "@/components/ui";
 import { ApiClientError } from "@/lib/client/api";
 import { takeKeys } from "@/lib/client/query-keys";
 import { AnalysesTable } from "./AnalysesTable";
@@ -20,6 +20,7 @@ import { FocusedNotes } from "./FocusedNotes";
 import { TakePianoRoll } from "./TakePianoRoll";
 import { useNotes } from "./use-notes";
 import { useTake } from "./use-take";
+import { takeDeleteMessage } from "./take-delete";
 
 /** The take page: header, analysis with live progress, player, notes, analyses, re-analyse. */
 export function TakeView({
@@ -46,7 +47,6 @@ export function TakeView({
   const remove = useDeleteTake();
   const [deleting, setDeleting] = useState(false);
   const [exporting, setExporting] = useState(false);
-  const [deleteError, setDeleteError] = useState<string | null>(null);
 
   const analysis = take.data?.analysis ?? null;
   // When an analysis finishes (or a new one starts), the notes and the list of analyses change.
@@ -105,7 +105,7 @@ export function TakeView({
           <div className="flex gap-2">
             {canExport && notes.data ? <Button onClick={() => setExporting(true)}>Export…</Button> : null}
             {canEdit ? (
-              <Button variant="secondary" onClick={() => { setDeleteError(null); setDeleting(true); }}>
+              <Button variant="secondary" onClick={() => setDeleting(true)}>
                 Delete take
               </Button>
             ) : null}
@@ -171,28 +171,15 @@ export function TakeView({
 
       {canExport ? <ExportDialog takeId={t.id} open={exporting} onClose={() => setExporting(false)} canBuy={canBuy} /> : null}
 
-      <ConfirmDialog
-        open={deleting}
+      <DeleteForGoodDialog
+        item={deleting ? t : null}
         title="Delete this take?"
-        message={
-          <>
-            <strong>{t.name}</strong> will be deleted for good: the recording, every analysis, the draft notes and all
-            revisions. This cannot be undone.
-            {deleteError ? <span className="mt-2 block text-danger" role="alert">{deleteError}</span> : null}
-          </>
-        }
-        confirmLabel="Delete for good"
-        danger
-        busy={remove.isPending}
+        message={takeDeleteMessage}
         onCancel={() => setDeleting(false)}
-        onConfirm={async () => {
-          try {
-            await remove.mutateAsync(t.id);
-            setDeleting(false);
-            router.push(`/projects/${projectId}`);
-          } catch (e) {
-            setDeleteError(e instanceof Error ? e.message : "Deleting failed.");
-          }
+        onDelete={(take) => remove.mutateAsync(take.id)}
+        onDeleted={() => {
+          setDeleting(false);
+          router.push(`/projects/${projectId}`);
         }}
       />
     </div>

@@ -5,7 +5,7 @@ import {
   Alert,
   AnalysisBadge,
   Button,
-  ConfirmDialog,
+  DeleteForGoodDialog,
   DataTable,
   EmptyState,
   Mono,
@@ -15,6 +15,7 @@ import { dateTimeFormat, formatDuration } from "./format";
 import type { TakeDto } from "./types";
 import { useDeleteTake } from "./use-delete-take";
 import { useTakes } from "./use-takes";
+import { takeDeleteMessage } from "./take-delete";
 
 const col = createDataTableColumns<TakeDto>();
 const STATE_ORDER = { queued: 1, analysing: 2, ready: 3, failed: 4 } as const;
@@ -24,7 +25,6 @@ export function TakesTable({ projectId, canEdit }: { projectId: string; canEdit:
   const takes = useTakes(projectId);
   const remove = useDeleteTake();
   const [deleting, setDeleting] = useState<TakeDto | null>(null);
-  const [deleteError, setDeleteError] = useState<string | null>(null);
 
   const columns = useMemo(
     () =>
@@ -80,10 +80,7 @@ export function TakesTable({ projectId, canEdit }: { projectId: string; canEdit:
                 <Button
                   size="sm"
                   variant="ghost"
-                  onClick={() => {
-                    setDeleteError(null);
-                    setDeleting(row.original);
-                  }}
+                  onClick={() => setDeleting(row.original)}
                   aria-label={`Delete ${row.original.name}`}
                 >
                   Delete
@@ -127,29 +124,13 @@ export function TakesTable({ projectId, canEdit }: { projectId: string; canEdit:
         />
       )}
 
-      <ConfirmDialog
-        open={!!deleting}
+      <DeleteForGoodDialog
+        item={deleting}
         title="Delete this take?"
-        message={
-          <>
-            <strong>{deleting?.name}</strong> will be deleted for good: the recording, every analysis, the draft notes and
-            all revisions. This cannot be undone.
-            {deleteError ? <span className="mt-2 block text-danger" role="alert">{deleteError}</span> : null}
-          </>
-        }
-        confirmLabel="Delete for good"
-        danger
-        busy={remove.isPending}
+        message={takeDeleteMessage}
         onCancel={() => setDeleting(null)}
-        onConfirm={async () => {
-          if (!deleting) return;
-          try {
-            await remove.mutateAsync(deleting.id);
-            setDeleting(null);
-          } catch (e) {
-            setDeleteError(e instanceof Error ? e.message : "Deleting failed.");
-          }
-        }}
+        onDelete={(t) => remove.mutateAsync(t.id)}
+        onDeleted={() => setDeleting(null)}
       />
     </section>
   );

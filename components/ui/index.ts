@@ -25,6 +25,7 @@ export {
   type CentsDirection,
 } from "./cents-scale";
 export { ConfirmDialog, type ConfirmDialogProps } from "./ConfirmDialog";
+export { DeleteForGoodDialog, type DeleteForGoodDialogProps } from "./DeleteForGoodDialog";
 export {
   DataTable,
   createDataTableColumns,

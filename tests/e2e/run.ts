@@ -6,6 +6,8 @@ import path from "node:path";
 import wf from "wavefile";
 import { openBrowser, runSteps, shot, startApp } from "./harness";
 import { teachingSteps } from "./teaching";
+import { editorSteps } from "./editor";
+import { playbackSteps } from "./playback";
 
 const { WaveFile } = wf;
 
@@ -327,6 +329,8 @@ const failures = await runSteps([
     await shot(page, "23-billing-after-export");
   }],
   ...teachingSteps({ page, baseUrl: app.baseUrl, shot }),
+  ...editorSteps({ page, baseUrl: app.baseUrl, shot }),
+  ...playbackSteps({ page, baseUrl: app.baseUrl, shot }),
   ["no CSP violations or page errors", async () => {
     assert.deepEqual(errors.filter((e) => !/favicon/.test(e)), []);
   }],

@@ -7,7 +7,7 @@
  * takes the web server down.
  */
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
-import { existsSync, mkdirSync, readdirSync, statSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { openDb } from "@/db/client";
 import { migrateDb } from "@/db/migrate";
@@ -45,7 +45,54 @@ function buildIsStale(): boolean {
   return Math.max(...sources, ...configs) > built;
 }
 
+const LOCK_DIR = ".next-run.lock";
+
+/**
+ * With TAPERNOTE_EXCLUSIVE_BUILD=1 (the browser tests and the load script set it), one run of
+ * the app at a time uses this folder's `.next`: another run would rebuild it under a running
+ * server. Waits for the holder (a live process) to stop; a lock left by a dead one is taken over.
+ */
+async function takeBuildLock(): Promise<() => void> {
+  let announced = false;
+  for (;;) {
+    try {
+      mkdirSync(LOCK_DIR);
+      writeFileSync(path.join(LOCK_DIR, "pid"), String(process.pid));
+      return () => rmSync(LOCK_DIR, { recursive: true, force: true });
+    } catch (e) {
+      if ((e as NodeJS.ErrnoException).code !== "EEXIST") throw e;
+      const holder = Number(readFileSafe(path.join(LOCK_DIR, "pid")));
+      if (!holder || !alive(holder)) {
+        rmSync(LOCK_DIR, { recursive: true, force: true });
+        continue;
+      }
+      if (!announced) console.log(`[start] waiting for another run of the app from this folder (pid ${holder}) to stop …`);
+      announced = true;
+      await new Promise((r) => setTimeout(r, 2000));
+    }
+  }
+}
+
+function readFileSafe(file: string): string {
+  try {
+    return readFileSync(file, "utf8");
+  } catch {
+    return "";
+  }
+}
+
+function alive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 async function main() {
+  const releaseLock = process.env.TAPERNOTE_EXCLUSIVE_BUILD === "1" && !dev ? await takeBuildLock() : () => undefined;
+  process.on("exit", releaseLock);
   mkdirSync("data", { recursive: true });
   mkdirSync(env.DATA_DIR, { recursive: true });
 

@@ -39,6 +39,8 @@ export async function startApp(extraEnv: Record<string, string> = {}): Promise<R
     STRIPE_API_PORT: String(stripePort),
     AUTH_RATE_LIMIT_MAX: "1000",
     NEXT_TELEMETRY_DISABLED: "1",
+    // one test run at a time builds and serves this folder's .next (scripts/start.ts)
+    TAPERNOTE_EXCLUSIVE_BUILD: "1",
     ...extraEnv,
   };
   const child: ChildProcess = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "scripts/start.ts"], {
@@ -50,7 +52,8 @@ export async function startApp(extraEnv: Record<string, string> = {}): Promise<R
   child.stdout!.on("data", (d) => (log += d));
   child.stderr!.on("data", (d) => (log += d));
   const baseUrl = `http://localhost:${port}`;
-  const deadline = Date.now() + 240_000;
+  // generous: the app may first wait for another test run in this folder, then build
+  const deadline = Date.now() + 30 * 60_000;
   for (;;) {
     if (child.exitCode !== null) throw new Error(`the app exited early:\n${log}`);
     try {

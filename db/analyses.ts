@@ -119,6 +119,19 @@ export async function latestAnalysis(takeId: string): Promise<AnalysisDto | unde
   return row ? toDto(row) : undefined;
 }
 
+/** The newest analysis of each of the takes, in one query (for take lists). */
+export async function latestAnalyses(takeIds: string[]): Promise<Map<string, AnalysisDto>> {
+  const out = new Map<string, AnalysisDto>();
+  if (takeIds.length === 0) return out;
+  const rows = await db()
+    .select(columns)
+    .from(analysis)
+    .where(inArray(analysis.takeId, takeIds))
+    .orderBy(desc(analysis.createdAt), desc(analysis.id));
+  for (const row of rows) if (!out.has(row.takeId)) out.set(row.takeId, toDto(row));
+  return out;
+}
+
 /** Every analysis of a take, newest first (the caller has checked the take's studio). */
 export async function listAnalyses(takeId: string): Promise<AnalysisDto[]> {
   const rows = await db()

@@ -3,7 +3,7 @@ import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import { db } from "./client";
 import { newId } from "./ids";
 import { analysis, draft, project, revision, take } from "./schema";
-import { enqueueAnalysis, latestAnalysis } from "./analyses";
+import { enqueueAnalysis, latestAnalyses, latestAnalysis } from "./analyses";
 import type { AnalysisDto, TakeDto } from "@/lib/schemas/takes";
 import { AppError, conflict, notFound } from "@/lib/errors";
 import { deleteTakeFiles, storeFile } from "@/lib/storage/files";
@@ -69,8 +69,9 @@ export async function listTakes(studioId: string, projectId: string): Promise<Ta
     .from(take)
     .where(and(eq(take.studioId, studioId), eq(take.projectId, projectId)))
     .orderBy(desc(take.createdAt));
-  const counts = await noteCounts(rows.map((r) => r.id));
-  return Promise.all(rows.map(async (r) => toDto(r, (await latestAnalysis(r.id)) ?? null, counts.get(r.id) ?? null)));
+  const ids = rows.map((r) => r.id);
+  const [counts, analyses] = await Promise.all([noteCounts(ids), latestAnalyses(ids)]);
+  return rows.map((r) => toDto(r, analyses.get(r.id) ?? null, counts.get(r.id) ?? null));
 }
 
 /** The take's row in the studio, or 404 (another studio's take does not exist for the caller). */

@@ -4,3 +4,7 @@ export * from "./grid";
 export * from "./operations";
 export * from "./history";
 export * from "./selection";
+export * from "./save-queue";
+export * from "./diff";
+export * from "./time-index";
+export * from "./summary";

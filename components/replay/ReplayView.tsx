@@ -40,7 +40,7 @@ export function ReplayView({
   report: TuningReportDto | null;
   renderComments: (seek: (sec: number) => void) => ReactNode;
 }) {
-  const player = useReplayPlayer(notes);
+  const player = useReplayPlayer(notes, durationSec);
   const length = player.durationSec ?? durationSec;
   return (
     <div className="space-y-6">

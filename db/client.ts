@@ -15,31 +15,54 @@ const WRITE_SQL = /^\s*(insert|update|delete|replace|create|drop|alter|with|prag
  * one process writing at once would therefore block the event loop while the lock holder
  * (a transaction awaiting on the same loop) cannot finish: a deadlock until the busy timeout.
  * So within a process, writes and transactions take turns through an async lock; reads go
- * straight to the pool (WAL lets them run beside a writer). Other processes (the job runner)
- * wait for the lock in SQLite's busy handler, which works across processes.
- */
-/**
- * SQLite's own busy handler waits synchronously, which would freeze this process's event loop
- * while another process (the job runner) holds the write lock. So connections get a short busy
+ * straight to the pool (WAL lets them run beside a writer).
+ *
+ * SQLite's own busy handler waits synchronously too, which would freeze the event loop while
+ * another process (the job runner) holds the write lock. So connections get a short busy
  * timeout and a busy write is retried here, asynchronously, with back-off (about 10 s in all).
+ *
+ * A statement that met SQLITE_BUSY is not reset by the driver: its connection keeps it "in
+ * progress" (and can keep a lock) until it is garbage-collected, and a later transaction on that
+ * connection fails to COMMIT ("SQL statements in progress"). So writes run on a connection of
+ * their own — one at a time, behind the lock — which is closed and opened afresh after a busy
+ * error, before the retry; reads never meet a busy database in WAL mode and keep the pool.
  */
 const SHORT_BUSY_MS = 25;
-async function retryBusy<T>(run: () => Promise<T>): Promise<T> {
+
+function isBusy(e: unknown): boolean {
+  const code = (e as { code?: string }).code ?? "";
+  return code === "SQLITE_BUSY" || code.startsWith("SQLITE_BUSY") || (e as { rawCode?: number }).rawCode === 5;
+}
+
+async function retryBusy<T>(run: () => Promise<T>, afterBusy: () => void = () => undefined): Promise<T> {
   let waitMs = 5;
   for (let spent = 0; ; spent += waitMs, waitMs = Math.min(200, waitMs * 2)) {
     try {
       return await run();
     } catch (e) {
-      const code = (e as { code?: string; rawCode?: number }).code ?? "";
-      const busy = code === "SQLITE_BUSY" || code.startsWith("SQLITE_BUSY") || (e as { rawCode?: number }).rawCode === 5;
-      if (!busy || spent > 10_000) throw e;
+      if (!isBusy(e)) throw e;
+      afterBusy();
+      if (spent > 10_000) throw e;
       await new Promise((r) => setTimeout(r, waitMs));
     }
   }
 }
 
-function serialiseWrites(client: Client): Client {
+function serialiseWrites(client: Client, openWriter: () => Client): Client {
   let tail: Promise<void> = Promise.resolve();
+  let writer: Client | null = null;
+  const currentWriter = () => (writer ??= openWriter());
+  // the writer's connection may hold a half-run statement: start again on a fresh one
+  const discardWriter = () => {
+    const w = writer;
+    writer = null;
+    if (w === client) return; // an in-memory database's only connection
+    try {
+      w?.close();
+    } catch {
+      // already closed
+    }
+  };
   const lock = async (): Promise<() => void> => {
     let release!: () => void;
     const mine = new Promise<void>((r) => (release = r));
@@ -54,10 +77,10 @@ function serialiseWrites(client: Client): Client {
       }
     };
   };
-  const locked = async <T>(run: () => Promise<T>): Promise<T> => {
+  const locked = async <T>(run: (w: Client) => Promise<T>): Promise<T> => {
     const release = await lock();
     try {
-      return await retryBusy(run);
+      return await retryBusy(() => run(currentWriter()), discardWriter);
     } finally {
       release();
     }
@@ -67,11 +90,17 @@ function serialiseWrites(client: Client): Client {
     get(target, prop) {
       if (prop === "execute") {
         return (stmt: InStatement, args?: never) =>
-          WRITE_SQL.test(sqlOf(stmt)) ? locked(() => target.execute(stmt as never, args)) : target.execute(stmt as never, args);
+          WRITE_SQL.test(sqlOf(stmt)) ? locked((w) => w.execute(stmt as never, args)) : target.execute(stmt as never, args);
       }
       if (prop === "batch" || prop === "migrate" || prop === "executeMultiple") {
-        const fn = (target as unknown as Record<string, (...a: unknown[]) => Promise<unknown>>)[prop]!.bind(target);
-        return (...a: unknown[]) => locked(() => fn(...a));
+        return (...a: unknown[]) =>
+          locked((w) => (w as unknown as Record<string, (...b: unknown[]) => Promise<unknown>>)[prop]!(...a));
+      }
+      if (prop === "close") {
+        return () => {
+          discardWriter();
+          target.close();
+        };
       }
       if (prop === "transaction") {
         return async (mode?: "write" | "read" | "deferred") => {
@@ -79,23 +108,25 @@ function serialiseWrites(client: Client): Client {
           let tx: Transaction;
           try {
             // BEGIN IMMEDIATE takes the write lock at once, so only the BEGIN can meet a busy database
-            tx = await retryBusy(() => target.transaction(mode));
+            tx = await retryBusy(() => currentWriter().transaction(mode), discardWriter);
           } catch (e) {
             release();
             throw e;
           }
+          const settle = async (run: () => Promise<void> | void) => {
+            try {
+              await run();
+            } catch (e) {
+              if (isBusy(e)) discardWriter();
+              throw e;
+            } finally {
+              release();
+            }
+          };
           return new Proxy(tx, {
             get(t, p) {
               const v = Reflect.get(t, p, t) as unknown;
-              if (p === "commit" || p === "rollback") {
-                return async () => {
-                  try {
-                    return await (v as () => Promise<void>).call(t);
-                  } finally {
-                    release();
-                  }
-                };
-              }
+              if (p === "commit" || p === "rollback") return () => settle(() => (v as () => Promise<void>).call(t));
               if (p === "close") {
                 return () => {
                   try {
@@ -127,7 +158,10 @@ export function openDb(url: string, authToken?: string): Db {
   // libSQL connections enforce foreign keys by default.
   const local = url.startsWith("file:");
   const raw = createClient({ url, authToken, timeout: local ? SHORT_BUSY_MS : 5000 });
-  const client = local ? serialiseWrites(raw) : raw;
+  // an in-memory database exists on one connection only: its writes cannot move to another
+  const inMemory = /^file::memory:|^file:$|^:memory:/.test(url);
+  const openWriter = inMemory ? () => raw : () => createClient({ url, authToken, timeout: SHORT_BUSY_MS, concurrency: 1 });
+  const client = local ? serialiseWrites(raw, openWriter) : raw;
   return drizzle(client, { schema }) as Db;
 }
 

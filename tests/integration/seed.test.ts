@@ -76,4 +76,33 @@ describe("writes while another process holds the write lock", () => {
     const [row] = await app.db.select().from(studio).where(eq(studio.id, "busy-test"));
     expect(row?.name).toBe("Waited for the lock");
   });
+
+  it("leave every connection fit for later transactions (a busy write must not stay 'in progress')", async () => {
+    // Seen under load: after writes met a busy database, a later transaction's COMMIT failed
+    // with "cannot commit transaction - SQL statements in progress".
+    const other = createClient({ url: process.env.DATABASE_URL! });
+    for (let round = 0; round < 3; round++) {
+      const tx = await other.transaction("write");
+      await tx.execute("UPDATE studio SET name = name");
+      const released = new Promise<void>((resolve) => setTimeout(() => void tx.commit().then(resolve), 120));
+      // several writers meet the lock at once: plain writes and transactions
+      await Promise.all([
+        app.db.update(studio).set({ name: `Round ${round}` }).where(eq(studio.id, "busy-test")),
+        app.db.transaction(async (t) => {
+          await t.update(studio).set({ name: `Round ${round}, in a transaction` }).where(eq(studio.id, "busy-test"));
+        }),
+        app.db.insert(studio).values({ id: `busy-${round}`, name: "Another" }),
+      ]);
+      await released;
+    }
+    other.close();
+    // and afterwards, transactions on every pooled connection still commit
+    for (let i = 0; i < 8; i++) {
+      await app.db.transaction(async (t) => {
+        await t.update(studio).set({ name: `After ${i}` }).where(eq(studio.id, "busy-test"));
+      });
+    }
+    const [row] = await app.db.select().from(studio).where(eq(studio.id, "busy-test"));
+    expect(row?.name).toBe("After 7");
+  });
 });

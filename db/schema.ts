@@ -142,7 +142,9 @@ export const analysis = sqliteTable(
 );
 
 /** The engine's note list of a ready analysis; never edited in place. */
-export const draft = sqliteTable("draft", {
+export const draft = sqliteTable(
+  "draft",
+  {
   analysisId: text("analysis_id")
     .primaryKey()
     .references(() => analysis.id, { onDelete: "cascade" }),
@@ -154,7 +156,10 @@ export const draft = sqliteTable("draft", {
   notesJson: text("notes_json").notNull(),
   noteCount: integer("note_count").notNull(),
   createdAt: createdAt(),
-});
+  },
+  // "the notes" of a take and the cascade from a deleted take look drafts up by take
+  (t) => [index("draft_take_idx").on(t.takeId)],
+);
 
 /** A saved human-corrected note list, numbered 1, 2, 3 … per take. */
 export const revision = sqliteTable(

@@ -258,7 +258,8 @@ export async function getTakeNotesBody(studioId: string, takeId: string, opts: {
     .select({
       // explicit aliases: unqualified column names inside a subquery would bind to the inner table
       latestRevision: sql<number | null>`(select max(r.number) from revision r where r.take_id = "take"."id")`,
-      latestDraft: sql<string | null>`(select d.analysis_id from draft d join analysis a on a.id = d.analysis_id where d.take_id = "take"."id" order by a.created_at desc limit 1)`,
+      // through the take's analyses (analysis_take_idx), newest first, the first that has a draft
+      latestDraft: sql<string | null>`(select a.id from analysis a join draft d on d.analysis_id = a.id where a.take_id = "take"."id" order by a.created_at desc limit 1)`,
     })
     .from(take)
     .where(and(eq(take.id, takeId), eq(take.studioId, studioId)));

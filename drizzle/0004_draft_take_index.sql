@@ -1,0 +1,1 @@
+CREATE INDEX `draft_take_idx` ON `draft` (`take_id`);

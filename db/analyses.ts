@@ -132,6 +132,27 @@ export async function latestAnalyses(takeIds: string[]): Promise<Map<string, Ana
   return out;
 }
 
+/**
+ * How the reference pitch of the take's latest ready draft came about: estimated by the engine
+ * from the audio, or set in the analysis's settings (a number of Hz); null when there is no draft.
+ */
+export async function draftReferenceSetting(takeId: string): Promise<"estimate" | number | null> {
+  const [row] = await db()
+    .select({ settingsJson: analysis.settingsJson })
+    .from(analysis)
+    .innerJoin(draft, eq(draft.analysisId, analysis.id))
+    .where(eq(analysis.takeId, takeId))
+    .orderBy(desc(analysis.createdAt))
+    .limit(1);
+  if (!row) return null;
+  try {
+    const value = (JSON.parse(row.settingsJson) as { referenceHz?: unknown }).referenceHz;
+    return typeof value === "number" ? value : "estimate";
+  } catch {
+    return "estimate";
+  }
+}
+
 /** Every analysis of a take, newest first (the caller has checked the take's studio). */
 export async function listAnalyses(takeId: string): Promise<AnalysisDto[]> {
   const rows = await db()

@@ -62,7 +62,8 @@ export function ReportView({ projectId, projectName, takeId }: { projectId: stri
                 Measured against A4 = <Mono className="text-ink" data-testid="report-reference">{formatHz(data.referenceHz)}</Mono>
               </span>
               <span>
-                Estimated from the take: <Mono className="text-ink">{formatHz(data.estimatedReferenceHz ?? null)}</Mono>
+                {data.takeReferenceSource === "set" ? "Set for the analysis: " : "Estimated from the take: "}
+                <Mono className="text-ink">{formatHz(data.estimatedReferenceHz ?? null)}</Mono>
               </span>
               <span>{projectName}</span>
             </span>

@@ -5,6 +5,8 @@ export type TuningReportDto = {
   referenceHz: number;
   /** Estimated from the take's own notes; null when there are too few. */
   estimatedReferenceHz?: number | null;
+  /** Whether the take's own reference was estimated from the audio or set in the analysis settings. */
+  takeReferenceSource?: "estimated" | "set";
   referenceOffsetCents: number;
   notes: ReportNote[];
   voices: VoiceSummary[];

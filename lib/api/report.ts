@@ -1,4 +1,5 @@
 import "server-only";
+import { draftReferenceSetting } from "@/db/analyses";
 import { getTakeNotes } from "@/db/takes";
 import { tuningReport } from "@/lib/music/tuning-report";
 
@@ -10,5 +11,8 @@ export async function buildTuningReport(studioId: string, takeId: string, opts: 
   const notes = await getTakeNotes(studioId, takeId, { revision: opts.revision });
   const referenceHz = opts.referenceHz ?? notes.referenceHz;
   const report = tuningReport(notes.notes, referenceHz);
-  return { ...report, estimatedReferenceHz: notes.referenceHz, source: notes.source, revision: notes.revision };
+  // the take's own reference: the engine's estimate, unless the analysis was told the pitch
+  const setting = await draftReferenceSetting(takeId);
+  const takeReferenceSource: "estimated" | "set" = typeof setting === "number" ? "set" : "estimated";
+  return { ...report, estimatedReferenceHz: notes.referenceHz, takeReferenceSource, source: notes.source, revision: notes.revision };
 }

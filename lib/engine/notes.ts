@@ -52,6 +52,15 @@ export interface TrackingConfig {
   backtrackOdf?: number;
   /** Notes this many dB under the take's loudest note are dropped. */
   takeRangeDb?: number;
+  /**
+   * A detection-function peak of at least this multiple of its 95th percentile is a clear
+   * onset: a note whose own partials rise by `clearRiseDb` there is re-articulated, and the
+   * part after the split is an attack of its own.
+   */
+  clearOnsetOdf?: number;
+  clearRiseDb?: number;
+  /** Release: the note ends where its own partials fall this many dB within 30 ms (and twice that 30 ms later). */
+  releaseDropDb?: number;
 }
 
 /** One tracked note: frame span and per-frame fundamental and level. */
@@ -144,7 +153,10 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     const envDb = new Float32Array(envTo - envFrom + 1).fill(-200);
     if (store) for (let t = envFrom; t <= envTo; t++) envDb[t - envFrom] = store.harmonicLevelDb(t, fTrack);
     const env = (t: number) => (t >= envFrom && t <= envTo ? envDb[t - envFrom] : -200);
-    for (const seg of splitTrack(tr, onsetFrames, riseDb, store ? env : null, odf, splitOdf)) {
+    const clearOdf = (cfg.clearOnsetOdf ?? 2) * p95Odf;
+    const segs = splitTrack(tr, onsetFrames, riseDb, store ? env : null, odf, splitOdf, clearOdf, cfg.clearRiseDb ?? 4);
+    for (let si = 0; si < segs.length; si++) {
+      const seg = segs[si];
       const t0 = tr.t[seg[0]];
       const t1 = tr.t[seg[1] - 1];
       const fMed = median(tr.f.slice(seg[0], seg[1]));
@@ -227,8 +239,28 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           // an attack of its own: a clear detection-function peak there, or a steep rise
           hasOnset = bestRise >= (cfg.attackRiseDb ?? 10) || ((cfg.attackFromOdf ?? false) && snap >= 0 && odf[snap] >= splitOdf);
         }
+        // a re-articulation split at a clear onset is an attack of its own (so the fragment
+        // joining below does not glue it back onto the previous note)
+        if (si > 0) {
+          for (const o of onsetFrames) if (Math.abs(o - t0) <= 3 && odf[o] >= clearOdf) hasOnset = true;
+        }
       }
       let offsetSec = t1 * hop - (cfg.offsetFrameFraction ?? 0.5) * frameSec + hop;
+      if (store) {
+        // the release: in the note's last half second, the first frame where its own partials
+        // (short frames) fall D dB under their level of the 30 ms before and keep falling
+        // (2·D within 30 ms more). A sustained note's release falls faster than its sustain,
+        // a damped string faster than its free decay; the frame is centred on the fall.
+        const D = cfg.releaseDropDb ?? 6;
+        for (let t = Math.max(t0 + 8, t1 - 50); t <= t1 + 4; t++) {
+          const pre = Math.max(env(t - 3), env(t - 2), env(t - 1));
+          if (pre < -150) continue;
+          if (env(t) <= pre - D && env(t + 3) <= pre - 2 * D) {
+            offsetSec = Math.min(offsetSec, t * hop);
+            break;
+          }
+        }
+      }
       if (offsetSec < onsetSec + cfg.shortestNoteSec) offsetSec = onsetSec + cfg.shortestNoteSec;
       if ((t1 - t0 + 1) * hop < cfg.shortestNoteSec) continue;
       out.push({
@@ -355,8 +387,20 @@ function pruneShadows(notes: TrackedNote[], shadowDb: number): TrackedNote[] {
   return notes.filter((_, i) => keep[i]);
 }
 
-/** Index ranges [start, end) of a track split at onsets where its level rises by riseDb. */
-function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number, env: ((t: number) => number) | null, odf: Float32Array, minOdf: number): Array<[number, number]> {
+/**
+ * Index ranges [start, end) of a track split at onsets where its level rises by riseDb
+ * (clearRiseDb at a clear onset, odf ≥ clearOdf).
+ */
+function splitTrack(
+  tr: Track,
+  onsetFrames: Int32Array,
+  riseDb: number,
+  env: ((t: number) => number) | null,
+  odf: Float32Array,
+  minOdf: number,
+  clearOdf = Infinity,
+  clearRiseDb = riseDb,
+): Array<[number, number]> {
   const segs: Array<[number, number]> = [];
   const n = tr.t.length;
   const db = tr.l.map((l) => 20 * Math.log10(l + 1e-12));
@@ -381,7 +425,7 @@ function splitTrack(tr: Track, onsetFrames: Int32Array, riseDb: number, env: ((t
       for (let j = Math.max(start, idx - 5); j < idx; j++) before = Math.min(before, db[j]);
       for (let j = idx; j < Math.min(n, idx + 4); j++) after = Math.max(after, db[j]);
     }
-    if (after - before >= riseDb) {
+    if (after - before >= (odf[o] >= clearOdf ? clearRiseDb : riseDb)) {
       segs.push([start, idx]);
       start = idx;
     }

@@ -26,8 +26,15 @@ export function steadyPitchHz(timesSec: ArrayLike<number>, f0Hz: ArrayLike<numbe
 }
 
 /**
- * Reference pitch of a take from its notes' deviations from 12-TET at 440 Hz:
- * the duration-weighted circular mean of the cents (period 100 cents), d, gives
+ * Reference pitch of a take from its notes' deviations from 12-TET at 440 Hz, robust to the
+ * few notes measured wrong (an octave shadow or a fragment on an attack):
+ *  1. d₀ = the weighted circular mean of the cents (period 100 c);
+ *  2. residuals r_i = c_i − d wrapped to ±50 c, scale s = max(1 c, 1.4826 · weighted MAD)
+ *     (median absolute deviation, Hampel 1974);
+ *  3. Tukey's biweight M-estimate of location (Beaton & Tukey 1974; Hoaglin, Mosteller & Tukey,
+ *     "Understanding Robust and Exploratory Data Analysis", 1983), iterated from d₀:
+ *     u_i = r_i / (4.685 s), ψ-weights v_i = w_i (1 − u_i²)² for |u_i| < 1 (else 0),
+ *     d ← d + Σ v_i r_i / Σ v_i.
  * A4 = 440 · 2^(d/1200). A semitone-shifted tuning (A4 = 415 ≈ 440 − 101 c) cannot be told
  * from a transposition, so the estimate lies within ±50 cents of 440 Hz.
  */
@@ -40,8 +47,42 @@ export function estimateReferenceHz(cents: ArrayLike<number>, weights: ArrayLike
     sy += weights[i] * Math.sin(a);
   }
   if (sx === 0 && sy === 0) return 440;
-  const d = (Math.atan2(sy, sx) * 100) / (2 * Math.PI);
+  let d = (Math.atan2(sy, sx) * 100) / (2 * Math.PI);
+  const wrap = (x: number) => x - 100 * Math.round(x / 100);
+  const n = cents.length;
+  const r = new Float64Array(n);
+  for (let iter = 0; iter < 10; iter++) {
+    for (let i = 0; i < n; i++) r[i] = wrap(cents[i] - d);
+    const dev = Array.from(r, (x) => Math.abs(x));
+    const s = Math.max(1, 1.4826 * weightedMedian(dev, weights));
+    let num = 0;
+    let den = 0;
+    for (let i = 0; i < n; i++) {
+      const u = r[i] / (4.685 * s);
+      if (Math.abs(u) >= 1) continue;
+      const v = weights[i] * (1 - u * u) * (1 - u * u);
+      num += v * r[i];
+      den += v;
+    }
+    if (!(den > 0)) break;
+    const step = num / den;
+    d = wrap(d + step);
+    if (Math.abs(step) < 1e-4) break;
+  }
   return 440 * Math.pow(2, d / 1200);
+}
+
+/** Weighted median: the smallest x_i at which the cumulative weight reaches half the total. */
+function weightedMedian(xs: ArrayLike<number>, ws: ArrayLike<number>): number {
+  const idx = Array.from({ length: xs.length }, (_, i) => i).sort((a, b) => xs[a] - xs[b] || a - b);
+  let total = 0;
+  for (let i = 0; i < xs.length; i++) total += ws[i];
+  let acc = 0;
+  for (const i of idx) {
+    acc += ws[i];
+    if (acc >= total / 2) return xs[i];
+  }
+  return 0;
 }
 
 /** Nearest MIDI note at A4 = 440 Hz and deviation (cents) of a frequency. */

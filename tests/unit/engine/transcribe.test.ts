@@ -1,6 +1,6 @@
 import { describe, it, expect, beforeAll } from "vitest";
 import { readFileSync } from "node:fs";
-import { decodeAudio, transcribe, noteMetrics, parseSettings, settingsSchema, EngineError, TAPER_NAMES, type Transcription } from "@/lib/engine/index";
+import { decodeAudio, transcribe, noteMetrics, parseSettings, settingsSchema, EngineError, TAPER_NAMES, estimateReferenceHz, type Transcription } from "@/lib/engine/index";
 
 // Fixtures: rendered by `npm run fixtures` (scripts/make-fixtures.ts) — MIDI written with
 // @tonejs/midi, rendered by FluidSynth with the FluidR3 GM SoundFont (real sampled
@@ -86,6 +86,24 @@ describe("transcription of rendered fixtures", () => {
         expect(n.pitchCurve!.timeSec.length).toBe(n.pitchCurve!.cents.length);
       }
     }
+  });
+});
+
+describe("reference pitch estimate", () => {
+  // 442 Hz is +7.85 cents from 440 Hz (REFERENCES.md §4, computed). Tukey's biweight location
+  // (Hoaglin, Mosteller & Tukey 1983) gives zero weight to points beyond 4.685 robust scales.
+  const cents442 = 1200 * Math.log2(442 / 440);
+  it("notes in tune at 442 Hz give 442 Hz", () => {
+    expect(estimateReferenceHz([cents442, cents442, cents442], [1, 1, 1])).toBeCloseTo(442, 6);
+  });
+  it("a few notes measured far off (an octave shadow at 0 c, a fragment at −20 c) do not pull the estimate", () => {
+    const cents = [cents442 - 0.5, cents442 + 0.5, cents442 - 0.3, cents442 + 0.3, cents442, 0, -20];
+    const hz = estimateReferenceHz(cents, [1, 1, 1, 1, 1, 1, 1]);
+    expect(Math.abs(1200 * Math.log2(hz / 442))).toBeLessThan(0.05);
+  });
+  it("cents near ±50 wrap around (period 100 c): +49 and −49 average to ±50, not 0", () => {
+    const hz = estimateReferenceHz([49, -49], [1, 1]);
+    expect(Math.abs(Math.abs(1200 * Math.log2(hz / 440)) - 50)).toBeLessThan(0.01);
   });
 });
 

@@ -51,16 +51,23 @@ export function findPeaks(
   const lo = Math.max(2, p.binLo);
   const hi = Math.min(power.length - 2, p.binHi);
   if (hi <= lo) return offset;
-  let maxP = 0;
-  for (let k = lo; k < hi; k++) if (power[k] > maxP) maxP = power[k];
-  if (maxP <= p.minPower) return offset;
-  const thr = Math.max(p.minPower, maxP * Math.pow(10, -p.rangeDb / 10));
+  // one pass: running sums of the noise-floor window and the loudest bin in range
   const W = p.floorHalfWidth;
   const a0 = Math.max(0, lo - W);
   const a1 = Math.min(power.length, hi + W);
   const pre = scratch.prefix;
   pre[a0] = 0;
-  for (let k = a0; k < a1; k++) pre[k + 1] = pre[k] + power[k];
+  let acc = 0;
+  let maxP = 0;
+  for (let k = a0; k < lo; k++) pre[k + 1] = acc += power[k];
+  for (let k = lo; k < hi; k++) {
+    const v = power[k];
+    pre[k + 1] = acc += v;
+    if (v > maxP) maxP = v;
+  }
+  for (let k = hi; k < a1; k++) pre[k + 1] = acc += power[k];
+  if (maxP <= p.minPower) return offset;
+  const thr = Math.max(p.minPower, maxP * Math.pow(10, -p.rangeDb / 10));
   let n = offset;
   const cap = Math.min(end, outFreqHz.length);
   for (let k = lo; k < hi && n < cap; k++) {

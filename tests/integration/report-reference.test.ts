@@ -4,24 +4,13 @@
  * tuned to 442 Hz). A tone generated at the equal-tempered A4 = 440 Hz is analysed both ways.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { runQueuedJobs } from "../support/jobs";
 import { call, signUpVerified, startTestApp, type TestApp } from "../support/app";
 import { toneWav, uploadForm } from "../support/audio";
-import { claimNext, completeAnalysis } from "@/db/analyses";
-import { decodeAudio, transcribe } from "@/lib/engine";
-import { readStored } from "@/lib/storage/files";
 
 let app: TestApp;
 let cookie = "";
 let projectId = "";
-
-async function runQueuedJobs() {
-  for (;;) {
-    const job = await claimNext("test-worker", 60_000);
-    if (!job) return;
-    const audio = await decodeAudio(await readStored(job.analysisKey));
-    await completeAnalysis(job.id, "test-worker", await transcribe(audio.samples, audio.sampleRateHz, job.settings));
-  }
-}
 
 beforeAll(async () => {
   app = await startTestApp();

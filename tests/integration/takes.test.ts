@@ -6,12 +6,10 @@ import { existsSync, readdirSync } from "node:fs";
 import path from "node:path";
 import { sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { runQueuedJobs } from "../support/jobs";
 import { call, cookiesFrom, signUpVerified, startTestApp, waitForMail, type TestApp } from "../support/app";
 import { toneWav, uploadForm } from "../support/audio";
 import { analysis, take } from "@/db/schema";
-import { claimNext, completeAnalysis } from "@/db/analyses";
-import { decodeAudio, transcribe } from "@/lib/engine";
-import { readStored } from "@/lib/storage/files";
 
 let app: TestApp;
 let editor = "";
@@ -23,17 +21,6 @@ const rows = async () => ({
   analyses: Number((await app.db.select({ n: sql<number>`count(*)` }).from(analysis))[0]!.n),
   files: existsSync(process.env.DATA_DIR!) ? readdirSync(process.env.DATA_DIR!).length : 0,
 });
-
-/** Runs queued analyses with the real engine, as a worker would (the pool itself is tested in jobs.test.ts). */
-async function runQueuedJobs() {
-  for (;;) {
-    const job = await claimNext("test-worker", 60_000);
-    if (!job) return;
-    const audio = await decodeAudio(await readStored(job.analysisKey));
-    const result = await transcribe(audio.samples, audio.sampleRateHz, job.settings);
-    await completeAnalysis(job.id, "test-worker", result);
-  }
-}
 
 const upload = (fields: Record<string, Uint8Array | string>, opts: { cookie?: string; fileName?: string; headers?: Record<string, string> } = {}) =>
   call("POST", `/api/v1/projects/${projectId}/takes`, { cookie: opts.cookie ?? editor, rawBody: uploadForm(fields, opts.fileName), headers: opts.headers });

@@ -10,7 +10,9 @@ import { eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { newId } from "@/db/ids";
 import { analysis, draft, project, studio, take } from "@/db/schema";
-import { storeFile } from "@/lib/storage/files";
+import { claimNext, completeAnalysis } from "@/db/analyses";
+import { decodeAudio, transcribe } from "@/lib/engine";
+import { readStored, storeFile } from "@/lib/storage/files";
 
 const { WaveFile } = wf;
 
@@ -96,5 +98,18 @@ export async function waitForAnalysis(
     }
     if (Date.now() - start > timeoutMs) throw new Error(`analysis ${id} did not get there: ${JSON.stringify(row)}`);
     await new Promise((r) => setTimeout(r, 40));
+  }
+}
+
+/**
+ * Runs the queued analyses with the real engine, in this process, as a worker would (the pool
+ * itself is tested in jobs.test.ts).
+ */
+export async function runQueuedJobs(workerId = "test-worker"): Promise<void> {
+  for (;;) {
+    const job = await claimNext(workerId, 60_000);
+    if (!job) return;
+    const audio = await decodeAudio(await readStored(job.analysisKey));
+    await completeAnalysis(job.id, workerId, await transcribe(audio.samples, audio.sampleRateHz, job.settings));
   }
 }

@@ -20,7 +20,7 @@ export function spectrogramColours(theme: Pick<RollTheme, "paper" | "ink">): Uin
   const stops = [hex(theme.paper), hex("#4a5d73"), hex(theme.ink)];
   const lut = new Uint8ClampedArray(256 * 4);
   for (let i = 0; i < 256; i++) {
-    const v = Math.pow(i / 255, 1.4) * 2;
+    const v = Math.pow(i / 255, 1.7) * 2;
     const k = Math.min(1, Math.floor(v));
     const f = v - k;
     for (let c = 0; c < 3; c++) lut[i * 4 + c] = stops[k]![c]! + (stops[k + 1]![c]! - stops[k]![c]!) * f;

@@ -52,11 +52,6 @@ export function TakeTimeline({ takeId, audioUrl, durationSec, referenceHz, notes
     }
   }, [width, timeView, durationSec]);
 
-  // With no notes there is only the recording to hear.
-  useEffect(() => {
-    if (!hasNotes && player.mode !== "original") player.engine.setMode("original");
-  }, [hasNotes, player.mode, player.engine]);
-
   return (
     <div ref={root} className="overflow-hidden rounded-md border border-rule bg-paper" data-testid="take-timeline" data-take={takeId}>
       {/* the recording is the clock; it has no controls of its own */}

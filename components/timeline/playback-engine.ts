@@ -60,6 +60,8 @@ export type PlaybackStats = {
   /** |playhead + output latency − audio.currentTime|, i.e. the clock mapping against the element's own clock. */
   playheadMaxMs: number;
   playheadMeanMs: number;
+  /** Where in the recording (s) the largest playhead error was seen. */
+  playheadMaxAtSec: number;
   /** Notes handed to the synthesiser. */
   notes: number;
   /** How late after its time a note reached the synthesiser (0 when ahead, as it should be). */
@@ -85,6 +87,10 @@ export type PlaybackProbe = {
   mode(): ListenMode;
   /** Notes handed to the synthesiser since the page opened. */
   notesScheduled(): number;
+  /** Output latency the playhead takes off (s). */
+  latencySec(): number;
+  /** The graph's gains now: recording, notes (after the listen mode and balance), master level. */
+  gains(): { original: number; notes: number; master: number } | null;
   stats(): PlaybackStats;
   resetStats(): void;
 };
@@ -96,7 +102,7 @@ declare global {
 }
 
 function emptyStats(): PlaybackStats {
-  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0 };
+  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0 };
 }
 
 function cautionSeen(): boolean {
@@ -109,6 +115,9 @@ function cautionSeen(): boolean {
 
 type Graph = { T: ToneModule; raw: BaseAudioContext & { getOutputTimestamp?: () => AudioTimestamp; outputLatency?: number; baseLatency?: number }; original: ToneGain; notes: ToneGain; master: ToneGain };
 type Voices = { synth: AnyPolySynth; gain: ToneGain };
+
+/** The source node of each element routed so far (an element can have only one, ever). */
+const sources = new WeakMap<HTMLMediaElement, MediaElementAudioSourceNode>();
 
 export class PlaybackEngine {
   private state: PlaybackState = {
@@ -141,9 +150,14 @@ export class PlaybackEngine {
   private playheadErrSum = 0;
   private noteErrSum = 0;
   private disposed = false;
+  private lastReading = -1;
 
-  constructor(private readonly view: TimeView) {
-    view.onSeek((sec) => this.seek(sec));
+  constructor(private readonly view: TimeView) {}
+
+  /** Mounted: take the time view's seeks and put the probe on the page (again, after a dispose). */
+  activate(): void {
+    this.disposed = false;
+    this.view.onSeek((sec) => this.seek(sec));
     if (typeof window !== "undefined") window.__tapernotePlayback = this.probe();
   }
 
@@ -163,7 +177,14 @@ export class PlaybackEngine {
 
   /** The notes as currently edited; the scheduler reads the latest list on its next tick. */
   setNotes(notes: readonly PlayNote[]): void {
+    const had = this.sorted.length > 0;
     this.sorted = sortByOnset(notes);
+    if (had !== this.sorted.length > 0) this.applyGains();
+  }
+
+  /** With no notes (none yet, or all deleted) there is only the recording to hear. */
+  effectiveMode(): ListenMode {
+    return this.sorted.length > 0 ? this.state.mode : "original";
   }
 
   attach(audio: HTMLAudioElement | null): void {
@@ -297,7 +318,7 @@ export class PlaybackEngine {
     this.detachAudio?.();
     this.audio?.pause();
     this.view.onSeek(null);
-    if (typeof window !== "undefined" && window.__tapernotePlayback?.stats === this.probeRef?.stats) delete window.__tapernotePlayback;
+    if (typeof window !== "undefined" && this.probeRef && window.__tapernotePlayback === this.probeRef) delete window.__tapernotePlayback;
     const g = this.graph;
     this.graph = null;
     if (g) {
@@ -321,7 +342,11 @@ export class PlaybackEngine {
     const original = new T.Gain(0).connect(master);
     const notes = new T.Gain(0).connect(master);
     // One element can feed one source node for its lifetime; the element's own volume is left at 1.
-    const source = ctx.createMediaElementSource(audio);
+    let source = sources.get(audio);
+    if (!source) {
+      source = ctx.createMediaElementSource(audio);
+      sources.set(audio, source);
+    }
     T.connect(source, original);
     audio.volume = 1;
     this.graph = { T, raw: ctx.rawContext as Graph["raw"], original, notes, master };
@@ -331,7 +356,7 @@ export class PlaybackEngine {
   private applyGains(rampSec = 0.03): void {
     const g = this.graph;
     if (!g) return;
-    const { original, notes } = mixGains(this.state.mode, this.state.balance);
+    const { original, notes } = mixGains(this.effectiveMode(), this.state.balance);
     const now = g.raw.currentTime;
     const set = (gain: ToneGain, v: number) => {
       if (rampSec > 0) gain.gain.rampTo(v, rampSec, now);
@@ -368,6 +393,7 @@ export class PlaybackEngine {
   private startRunning(): void {
     this.stopTimers();
     this.clock.reset();
+    this.lastReading = -1;
     this.scheduledUntil = null;
     this.freshVoices();
     this.timer = setInterval(() => this.tick(), TICK_SEC * 1000);
@@ -398,6 +424,7 @@ export class PlaybackEngine {
   private restartNotes(): void {
     if (!this.state.playing) return;
     this.clock.reset();
+    this.lastReading = -1;
     this.scheduledUntil = null;
     this.checks = [];
     this.freshVoices();
@@ -408,10 +435,13 @@ export class PlaybackEngine {
     const g = this.graph;
     if (!audio || !g) return;
     const ctxNow = g.raw.currentTime;
-    const reading = !audio.paused && !audio.seeking && audio.readyState >= 3;
-    if (reading) this.clock.add(audio.currentTime, ctxNow);
+    const mediaNow = audio.currentTime;
+    // a position that has not moved since the last tick is stale (the element not yet started, or cached)
+    const reading = !audio.paused && !audio.seeking && audio.readyState >= 3 && mediaNow !== this.lastReading;
+    this.lastReading = mediaNow;
+    if (reading) this.clock.add(mediaNow, ctxNow);
     if (!this.clock.ready) return;
-    if (reading) this.checkNotes(audio.currentTime, ctxNow);
+    if (reading) this.checkNotes(mediaNow, ctxNow);
     const pos = this.clock.mediaAt(ctxNow);
     const loop = this.view.get().loop;
     const cut = loopCut(pos, loop);
@@ -493,7 +523,10 @@ export class PlaybackEngine {
       heardCtx = ts.contextTime + Math.max(0, performance.now() - ts.performanceTime) / 1000;
     }
     heardCtx = Math.min(heardCtx, g.raw.currentTime);
-    return { sec: this.clock.mediaAt(heardCtx), latencySec: g.raw.currentTime - heardCtx };
+    const latencySec = g.raw.currentTime - heardCtx;
+    // the first readings after a start: the element's own position, until the median has a few
+    if (this.clock.count < 3 && this.audio) return { sec: this.audio.currentTime - latencySec, latencySec };
+    return { sec: this.clock.mediaAt(heardCtx), latencySec };
   }
 
   private drawPlayhead(): void {
@@ -511,7 +544,10 @@ export class PlaybackEngine {
       const st = this.stats;
       st.frames++;
       this.playheadErrSum += err;
-      st.playheadMaxMs = Math.max(st.playheadMaxMs, err);
+      if (err > st.playheadMaxMs) {
+        st.playheadMaxMs = err;
+        st.playheadMaxAtSec = audio.currentTime;
+      }
       st.playheadMeanMs = this.playheadErrSum / st.frames;
       st.latencyMs = heard.latencySec * 1000;
     }
@@ -525,8 +561,10 @@ export class PlaybackEngine {
       playheadSec: () => this.view.get().playheadSec,
       contextSec: () => this.graph?.raw.currentTime ?? 0,
       playing: () => this.state.playing,
-      mode: () => this.state.mode,
+      mode: () => this.effectiveMode(),
       notesScheduled: () => this.scheduledTotal,
+      latencySec: () => this.heardSec()?.latencySec ?? 0,
+      gains: () => (this.graph ? { original: this.graph.original.gain.value, notes: this.graph.notes.gain.value, master: this.graph.master.gain.value } : null),
       stats: () => ({ ...this.stats }),
       resetStats: () => {
         this.stats = emptyStats();

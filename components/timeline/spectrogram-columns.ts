@@ -27,7 +27,7 @@ export type SpectrogramSpec = {
 
 /** At the decode rate of 22 050 Hz: a 186 ms frame (5.4 Hz bins), a column every 11.6 ms, E1…C8. */
 export function defaultSpec(sampleRateHz: number): SpectrogramSpec {
-  return { sampleRateHz, fftSize: 4096, hopSamples: 256, lowPitch: 28, highPitch: 108, bandsPerSemitone: 3, floorDb: -90, ceilDb: -12 };
+  return { sampleRateHz, fftSize: 4096, hopSamples: 256, lowPitch: 28, highPitch: 108, bandsPerSemitone: 3, floorDb: -84, ceilDb: -18 };
 }
 
 export function frameCount(sampleCount: number, hopSamples: number): number {

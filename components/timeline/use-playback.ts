@@ -29,7 +29,10 @@ export function usePlayback(notes: readonly PlayNote[], timeView: TimeView): Pla
       clearTimeout(id);
     };
   }, []);
-  useEffect(() => () => engine.dispose(), [engine]);
+  useEffect(() => {
+    engine.activate();
+    return () => engine.dispose();
+  }, [engine]);
   const state = useSyncExternalStore(
     (cb) => engine.subscribe(cb),
     () => engine.get(),

@@ -1,31 +1,22 @@
 "use client";
 import Link from "next/link";
-import { useState, type FormEvent } from "react";
+import { useState } from "react";
 import { Alert, Button, Field, Input } from "@/components/ui";
 import { authClient } from "@/lib/client/auth-client";
-import { formValues, validate, type FormErrors } from "@/lib/client/forms";
+import { FormFailure, TOO_MANY_ATTEMPTS, useZodForm } from "@/lib/client/use-zod-form";
 import { forgotPasswordSchema } from "@/lib/schemas/auth";
 
 export function ForgotPasswordForm() {
-  const [errors, setErrors] = useState<FormErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
   const [sent, setSent] = useState(false);
-  const [busy, setBusy] = useState(false);
-
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const result = validate(forgotPasswordSchema, formValues(event.currentTarget));
-    if (!result.ok) return setErrors(result.errors);
-    setErrors({});
-    setBusy(true);
-    const { error } = await authClient.requestPasswordReset({ email: result.data.email, redirectTo: "/reset-password" });
-    setBusy(false);
-    if (error) {
-      setFormError(error.status === 429 ? "Too many attempts. Wait a minute and try again." : "The request failed. Try again.");
-      return;
-    }
-    setSent(true);
-  }
+  const { errors, formError, busy, handleSubmit } = useZodForm(
+    forgotPasswordSchema,
+    async (data) => {
+      const { error } = await authClient.requestPasswordReset({ email: data.email, redirectTo: "/reset-password" });
+      if (error) throw new FormFailure(error.status === 429 ? TOO_MANY_ATTEMPTS : "The request failed. Try again.");
+      setSent(true);
+    },
+    "The request failed. Try again.",
+  );
 
   if (sent) {
     return (
@@ -37,7 +28,7 @@ export function ForgotPasswordForm() {
     );
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Reset your password">
+    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Reset your password">
       <h1 className="text-xl font-semibold">Forgot your password?</h1>
       <p className="text-sm text-ink-muted">Enter your e-mail address and we will send you a link to choose a new one.</p>
       {formError ? <Alert tone="error">{formError}</Alert> : null}

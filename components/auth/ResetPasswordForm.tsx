@@ -1,17 +1,22 @@
 "use client";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useState, type FormEvent } from "react";
 import { Alert, Button, Field, Input } from "@/components/ui";
 import { authClient } from "@/lib/client/auth-client";
-import { formValues, validate, type FormErrors } from "@/lib/client/forms";
+import { FormFailure, useZodForm } from "@/lib/client/use-zod-form";
 import { resetPasswordSchema } from "@/lib/schemas/auth";
 
 export function ResetPasswordForm({ token }: { token: string | null }) {
   const router = useRouter();
-  const [errors, setErrors] = useState<FormErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { errors, formError, busy, handleSubmit } = useZodForm(
+    resetPasswordSchema,
+    async (data) => {
+      const { error } = await authClient.resetPassword({ newPassword: data.password, token: token! });
+      if (error) throw new FormFailure("The reset link is invalid or has expired. Ask for a new one.");
+      router.replace("/sign-in?notice=reset");
+    },
+    "The password could not be saved. Try again.",
+  );
 
   if (!token) {
     return (
@@ -23,23 +28,8 @@ export function ResetPasswordForm({ token }: { token: string | null }) {
     );
   }
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const result = validate(resetPasswordSchema, formValues(event.currentTarget));
-    if (!result.ok) return setErrors(result.errors);
-    setErrors({});
-    setBusy(true);
-    const { error } = await authClient.resetPassword({ newPassword: result.data.password, token: token! });
-    setBusy(false);
-    if (error) {
-      setFormError("The reset link is invalid or has expired. Ask for a new one.");
-      return;
-    }
-    router.replace("/sign-in?notice=reset");
-  }
-
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Choose a new password">
+    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Choose a new password">
       <h1 className="text-xl font-semibold">Choose a new password</h1>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <Field label="New password" htmlFor="password" error={errors.password} hint="At least 8 characters.">

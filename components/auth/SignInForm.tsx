@@ -1,39 +1,30 @@
 "use client";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useState, type FormEvent } from "react";
 import { Alert, Button, Field, Input } from "@/components/ui";
 import { authClient } from "@/lib/client/auth-client";
-import { formValues, validate, type FormErrors } from "@/lib/client/forms";
+import { FormFailure, TOO_MANY_ATTEMPTS, useZodForm } from "@/lib/client/use-zod-form";
 import { signInSchema } from "@/lib/schemas/auth";
 
 export function SignInForm({ next, notice }: { next: string; notice?: string }) {
   const router = useRouter();
-  const [errors, setErrors] = useState<FormErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setFormError(null);
-    const result = validate(signInSchema, formValues(event.currentTarget));
-    if (!result.ok) return setErrors(result.errors);
-    setErrors({});
-    setBusy(true);
-    const { error } = await authClient.signIn.email({ ...result.data });
-    setBusy(false);
-    if (error) {
-      if (error.status === 403) setFormError("Confirm your e-mail address first: we have sent you a new link.");
-      else if (error.status === 429) setFormError("Too many attempts. Wait a minute and try again.");
-      else setFormError("That e-mail address and password do not match an account.");
-      return;
-    }
-    router.replace(next);
-    router.refresh();
-  }
+  const { errors, formError, busy, handleSubmit } = useZodForm(
+    signInSchema,
+    async (data) => {
+      const { error } = await authClient.signIn.email({ ...data });
+      if (error) {
+        if (error.status === 403) throw new FormFailure("Confirm your e-mail address first: we have sent you a new link.");
+        if (error.status === 429) throw new FormFailure(TOO_MANY_ATTEMPTS);
+        throw new FormFailure("That e-mail address and password do not match an account.");
+      }
+      router.replace(next);
+      router.refresh();
+    },
+    "Signing in failed. Try again.",
+  );
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in">
+    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Sign in">
       <h1 className="text-xl font-semibold">Sign in</h1>
       {notice ? <Alert tone="success">{notice}</Alert> : null}
       {formError ? <Alert tone="error">{formError}</Alert> : null}

@@ -1,35 +1,26 @@
 "use client";
 import Link from "next/link";
-import { useState, type FormEvent } from "react";
+import { useState } from "react";
 import { Alert, Button, Field, Input } from "@/components/ui";
 import { authClient } from "@/lib/client/auth-client";
-import { formValues, validate, type FormErrors } from "@/lib/client/forms";
+import { FormFailure, TOO_MANY_ATTEMPTS, useZodForm } from "@/lib/client/use-zod-form";
 import { signUpSchema } from "@/lib/schemas/auth";
 
 export function SignUpForm({ showDevMailbox }: { showDevMailbox: boolean }) {
-  const [errors, setErrors] = useState<FormErrors>({});
-  const [formError, setFormError] = useState<string | null>(null);
   const [sentTo, setSentTo] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setFormError(null);
-    const result = validate(signUpSchema, formValues(event.currentTarget));
-    if (!result.ok) return setErrors(result.errors);
-    setErrors({});
-    setBusy(true);
-    const { error } = await authClient.signUp.email({ ...result.data, callbackURL: "/projects" });
-    setBusy(false);
-    if (error) {
-      if (error.status === 422 || /exist/i.test(error.message ?? "")) {
-        setErrors({ email: "An account with this e-mail address already exists." });
-      } else if (error.status === 429) setFormError("Too many attempts. Wait a minute and try again.");
-      else setFormError(error.message ?? "The account could not be created. Try again.");
-      return;
-    }
-    setSentTo(result.data.email);
-  }
+  const { errors, formError, busy, handleSubmit } = useZodForm(
+    signUpSchema,
+    async (data) => {
+      const { error } = await authClient.signUp.email({ ...data, callbackURL: "/projects" });
+      if (error) {
+        if (error.status === 422 || /exist/i.test(error.message ?? "")) throw new FormFailure({ email: "An account with this e-mail address already exists." });
+        if (error.status === 429) throw new FormFailure(TOO_MANY_ATTEMPTS);
+        throw new FormFailure(error.message ?? "The account could not be created. Try again.");
+      }
+      setSentTo(data.email);
+    },
+    "The account could not be created. Try again.",
+  );
 
   if (sentTo) {
     return (
@@ -49,7 +40,7 @@ export function SignUpForm({ showDevMailbox }: { showDevMailbox: boolean }) {
   }
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Create an account">
+    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Create an account">
       <h1 className="text-xl font-semibold">Create an account</h1>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <Field label="Your name" htmlFor="name" error={errors.name}>

@@ -5,7 +5,6 @@
 import { mkdtempSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import wf from "wavefile";
 import { eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { newId } from "@/db/ids";
@@ -13,35 +12,16 @@ import { analysis, draft, project, studio, take } from "@/db/schema";
 import { claimNext, completeAnalysis } from "@/db/analyses";
 import { decodeAudio, transcribe } from "@/lib/engine";
 import { readStored, storeFile } from "@/lib/storage/files";
-
-const { WaveFile } = wf;
+import { toneWav as harmonicToneWav } from "./audio";
 
 /** A fresh DATA_DIR for one test file (pass it to startTestApp). */
 export function tempDataDir(): string {
   return mkdtempSync(path.join(os.tmpdir(), "tapernote-uploads-"));
 }
 
-/**
- * A 16-bit mono WAV of tones sounding together from `startSec` to the end: each tone has six
- * harmonics at 1/h amplitude (a plain sine pair would also be a harmonic series of its
- * difference tone, which is not what an instrument plays).
- */
+/** A 16-bit mono WAV at 16 kHz of tones (with harmonics) sounding together from `startSec` (0.25 s) to the end. */
 export function toneWav(durationSec: number, freqsHz: number[], options: { sampleRateHz?: number; startSec?: number } = {}): Uint8Array {
-  const sampleRateHz = options.sampleRateHz ?? 16000;
-  const startSec = options.startSec ?? 0.25;
-  const samples = new Int16Array(Math.round(durationSec * sampleRateHz));
-  const gain = 0.35 / freqsHz.length;
-  for (let i = 0; i < samples.length; i++) {
-    const tSec = i / sampleRateHz;
-    if (tSec < startSec) continue;
-    let v = 0;
-    for (const f of freqsHz) for (let h = 1; h <= 6; h++) v += Math.sin(2 * Math.PI * f * h * tSec) / h;
-    const attack = Math.min(1, (tSec - startSec) / 0.02);
-    samples[i] = Math.round(32767 * gain * attack * v);
-  }
-  const wav = new WaveFile();
-  wav.fromScratch(1, sampleRateHz, "16", samples);
-  return wav.toBuffer();
+  return harmonicToneWav({ durationSec, freqsHz, sampleRateHz: options.sampleRateHz ?? 16000, startSec: options.startSec ?? 0.25 });
 }
 
 export type SeededTake = { studioId: string; projectId: string; takeId: string };

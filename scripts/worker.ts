@@ -3,7 +3,10 @@
  * runs queued analyses from DATABASE_URL in a pool of worker threads until SIGTERM or SIGINT,
  * then stops claiming and puts its running jobs back in the queue for the next start.
  * JOB_WORKER_MEMORY_MB caps each worker thread's heap; JOB_TIMEOUT_MIN caps one attempt (default 30).
+ * JOB_NICE (default 10, 0 = off) lowers the runner's CPU priority: analyses are background work,
+ * and on a small machine the web server's answers must not wait behind them.
  */
+import os from "node:os";
 import { db } from "@/db/client";
 import { jobConfig } from "@/lib/config";
 import { serverEnv } from "@/lib/env";
@@ -11,6 +14,15 @@ import { AnalysisRunner } from "@/lib/jobs/runner";
 
 serverEnv(); // a bad environment stops here, with one readable message
 const config = jobConfig();
+const nice = Number(process.env.JOB_NICE ?? 10);
+if (Number.isInteger(nice) && nice > 0) {
+  try {
+    // before the pool starts: its threads inherit the priority of the thread that creates them
+    os.setPriority(0, Math.min(19, nice));
+  } catch (e) {
+    console.error(`[worker] could not lower the priority (JOB_NICE=${nice}): ${(e as Error).message}`);
+  }
+}
 const positive = (value: string | undefined) => {
   const n = Number(value);
   return Number.isFinite(n) && n > 0 ? n : undefined;

@@ -136,6 +136,7 @@ export function Spectrogram({ view, audio, audioUrl, widthPx }: { view: TimeView
       className="relative select-none"
       style={{ height: HEIGHT_PX }}
       data-testid="spectrogram"
+      data-via={data?.via}
       data-state={audio.status === "ready" ? (computing || !data ? "computing" : "ready") : audio.status}
       onClick={(e) => {
         const x = e.clientX - e.currentTarget.getBoundingClientRect().left;

@@ -38,6 +38,11 @@ export function TakeTimeline({ takeId, audioUrl, durationSec, referenceHz, notes
   const player = usePlayback(notes, timeView);
   const audio = useTakeAudio(audioUrl);
   const hasNotes = notes.length > 0;
+  // one "Try again" for the waveform's data and the player's element
+  const retry = () => {
+    audio.retry();
+    if (player.audioError) player.engine.reload();
+  };
   useSpaceToPlay(player.toggle);
 
   // The widest view's time area; on first sight, the first 20 s (or the whole take) across it.
@@ -59,7 +64,7 @@ export function TakeTimeline({ takeId, audioUrl, durationSec, referenceHz, notes
       <TransportBar player={player} view={timeView} lengthSec={player.durationSec ?? durationSec} hasNotes={hasNotes} referenceHz={referenceHz} />
       {width > 0 ? (
         <>
-          <Waveform view={timeView} audio={audio} widthPx={width} />
+          <Waveform view={timeView} audio={{ ...audio, retry }} widthPx={width} />
           <div className="border-t border-rule">
             <Spectrogram view={timeView} audio={audio} audioUrl={audioUrl} widthPx={width} />
           </div>

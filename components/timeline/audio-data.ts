@@ -173,6 +173,8 @@ export class SpectrogramData {
   data: Uint8Array = new Uint8Array(0);
   /** Columns [0, ready) are made (chunks arrive in order). */
   ready = 0;
+  /** Where the columns are made: a Web Worker, or the page in small chunks when no worker starts. */
+  via: "worker" | "page" = "worker";
   private listeners = new Set<() => void>();
 
   constructor(take: DecodedTake) {
@@ -235,6 +237,7 @@ export function spectrogramFor(url: string, take: DecodedTake): SpectrogramData 
 
 /** Without a worker: 64 columns at a time between frames, so the page stays responsive. */
 function inChunks(s: SpectrogramData, take: DecodedTake): void {
+  s.via = "page";
   const maker = new ColumnMaker(s.spec);
   const step = () => {
     const from = s.ready;

@@ -57,7 +57,7 @@ export type PlaybackState = {
 export type PlaybackStats = {
   /** Animation frames measured while playing. */
   frames: number;
-  /** |playhead + output latency − audio.currentTime|, i.e. the clock mapping against the element's own clock. */
+  /** |playhead + output latency (smoothed) − audio.currentTime|: the clock mapping against the element's own clock. */
   playheadMaxMs: number;
   playheadMeanMs: number;
   /** Where in the recording (s) the largest playhead error was seen. */
@@ -73,6 +73,8 @@ export type PlaybackStats = {
   noteErrorMeanMs: number;
   /** Output latency the playhead takes off (ms), last value. */
   latencyMs: number;
+  /** Frames where the playhead was more than 10 ms from the element's clock: [recording s, ms] (the first 40). */
+  spikes: [number, number][];
 };
 
 /** The read-only probe on window.__tapernotePlayback (see TakeTimeline's TSDoc). */
@@ -89,6 +91,15 @@ export type PlaybackProbe = {
   notesScheduled(): number;
   /** Output latency the playhead takes off (s). */
   latencySec(): number;
+  /**
+   * The last ~0.74 s of what the graph rendered (44.1 kHz), the recording's and the notes' buses
+   * apart, read in the same instant, with the context time of the newest sample: for measuring
+   * the audible sync of notes and recording from the output itself. Taps the buses (two
+   * AnalyserNodes, which change nothing that is heard) on the first call; null before playback.
+   */
+  heard(): { sampleRateHz: number; endContextSec: number; original: number[]; notes: number[] } | null;
+  /** The shared time window (startSec at the gutter's edge, pxPerSec) and the loop. */
+  timeWindow(): { startSec: number; pxPerSec: number; loop: { startSec: number; endSec: number } | null };
   /** The graph's gains now: recording, notes (after the listen mode and balance), master level. */
   gains(): { original: number; notes: number; master: number } | null;
   stats(): PlaybackStats;
@@ -102,7 +113,7 @@ declare global {
 }
 
 function emptyStats(): PlaybackStats {
-  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0 };
+  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0, spikes: [] };
 }
 
 function cautionSeen(): boolean {
@@ -151,6 +162,7 @@ export class PlaybackEngine {
   private noteErrSum = 0;
   private disposed = false;
   private lastReading = -1;
+  private latencySmoothSec: number | null = null;
 
   constructor(private readonly view: TimeView) {}
 
@@ -539,21 +551,26 @@ export class PlaybackEngine {
     // just after a wrap the heard position is still before the loop's start for a moment
     if (loop && sec < loop.startSec && audio.currentTime >= loop.startSec && audio.currentTime < loop.endSec) sec = loop.startSec;
     this.view.setPlayhead(sec);
+    // the output latency, smoothed: ctx.currentTime moves in steps of the output's buffer, the
+    // output timestamp smoothly, so their difference saws up and down by a buffer's length
+    this.latencySmoothSec = this.latencySmoothSec === null ? heard.latencySec : this.latencySmoothSec + 0.02 * (heard.latencySec - this.latencySmoothSec);
     if (!audio.paused && !audio.seeking && audio.readyState >= 3) {
-      const err = Math.abs(sec + heard.latencySec - audio.currentTime) * 1000;
+      const err = Math.abs(sec + this.latencySmoothSec - audio.currentTime) * 1000;
       const st = this.stats;
       st.frames++;
       this.playheadErrSum += err;
+      if (err > 10 && st.spikes.length < 40) st.spikes.push([+audio.currentTime.toFixed(3), +err.toFixed(1)]);
       if (err > st.playheadMaxMs) {
         st.playheadMaxMs = err;
         st.playheadMaxAtSec = audio.currentTime;
       }
       st.playheadMeanMs = this.playheadErrSum / st.frames;
-      st.latencyMs = heard.latencySec * 1000;
+      st.latencyMs = this.latencySmoothSec * 1000;
     }
   }
 
   private probeRef: PlaybackProbe | null = null;
+  private taps: { original: AnalyserNode; notes: AnalyserNode } | null = null;
 
   private probe(): PlaybackProbe {
     this.probeRef = {
@@ -563,9 +580,30 @@ export class PlaybackEngine {
       playing: () => this.state.playing,
       mode: () => this.effectiveMode(),
       notesScheduled: () => this.scheduledTotal,
-      latencySec: () => this.heardSec()?.latencySec ?? 0,
+      latencySec: () => this.latencySmoothSec ?? 0,
+      timeWindow: () => ({ ...this.view.get().window, loop: this.view.get().loop }),
+      heard: () => {
+        const g = this.graph;
+        if (!g) return null;
+        if (!this.taps) {
+          const make = () => {
+            const a = g.raw.createAnalyser();
+            a.fftSize = 32768;
+            return a;
+          };
+          this.taps = { original: make(), notes: make() };
+          g.T.connect(g.original, this.taps.original);
+          g.T.connect(g.notes, this.taps.notes);
+        }
+        const o = new Float32Array(this.taps.original.fftSize);
+        const n = new Float32Array(this.taps.notes.fftSize);
+        const endContextSec = g.raw.currentTime;
+        this.taps.original.getFloatTimeDomainData(o);
+        this.taps.notes.getFloatTimeDomainData(n);
+        return { sampleRateHz: g.raw.sampleRate, endContextSec, original: Array.from(o), notes: Array.from(n) };
+      },
       gains: () => (this.graph ? { original: this.graph.original.gain.value, notes: this.graph.notes.gain.value, master: this.graph.master.gain.value } : null),
-      stats: () => ({ ...this.stats }),
+      stats: () => ({ ...this.stats, spikes: [...this.stats.spikes] }),
       resetStats: () => {
         this.stats = emptyStats();
         this.playheadErrSum = 0;

@@ -1,3 +1,4 @@
+import type { CurvedNoteEvent } from "@/lib/music/note";
 import type { ReportChord, ReportNote, TuningSummary, VoiceSummary } from "@/lib/music/tuning-report";
 
 /** `GET /api/v1/takes/{takeId}/tuning-report` (and the `report` of a shared take). */
@@ -15,15 +16,7 @@ export type TuningReportDto = {
 };
 
 /** A note with its pitch curve (`GET /api/v1/takes/{takeId}/notes?curves=1`). */
-export type CurveNote = {
-  onsetSec: number;
-  offsetSec: number;
-  pitch: number;
-  cents: number;
-  velocity: number;
-  voice: number;
-  pitchCurve?: { timeSec: number[]; cents: number[] };
-};
+export type CurveNote = CurvedNoteEvent;
 
 export type CurveNotesDto = {
   source: "draft" | "revision";

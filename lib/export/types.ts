@@ -1,19 +1,7 @@
-/**
- * The note that every export writer takes: the API's note fields (../../shared/NAMES.md).
- * Extra fields (such as `pitchCurve`) are ignored.
- */
-export interface ExportNote {
-  onsetSec: number;
-  offsetSec: number;
-  /** MIDI note number 0 … 127 (the equal-tempered note nearest the sounding pitch). */
-  pitch: number;
-  /** Deviation of the sounding pitch from `pitch`, in cents (the API allows −100 … 100). */
-  cents: number;
-  /** 1 … 127. */
-  velocity: number;
-  /** Voice number ≥ 0 (the engine numbers voices from 1). */
-  voice: number;
-}
+import type { NoteEvent } from "../music/note";
+
+/** The note that every export writer takes: the API's note fields; extra fields (such as `pitchCurve`) are ignored. */
+export type ExportNote = NoteEvent;
 
 /** Time signature as [beats per measure, beat type]; the beat type is a power of two. */
 export type TimeSignature = readonly [number, number];

@@ -10,10 +10,10 @@
  * in all of them.
  */
 import { useEffect, useRef, useState, useSyncExternalStore } from "react";
-import { KEYBOARD_PX, MAX_PX_PER_SEC, MIN_PX_PER_SEC } from "@/components/piano-roll/geometry";
+import { MAX_PX_PER_SEC, MIN_PX_PER_SEC } from "@/components/piano-roll/geometry";
+import { TIMELINE_GUTTER_PX } from "./gutter";
 
-/** The left strip every time-aligned view keeps for labels (CSS px): the piano roll's keyboard. */
-export const TIMELINE_GUTTER_PX = KEYBOARD_PX;
+export { TIMELINE_GUTTER_PX };
 
 /** The visible time window: `startSec` at the gutter's right edge, `pxPerSec` across. */
 export type TimeWindow = { startSec: number; pxPerSec: number };

@@ -7,7 +7,7 @@ import assert from "node:assert/strict";
 import wf from "wavefile";
 import type { Page } from "playwright-core";
 import type { PlaybackProbe } from "@/components/timeline/playback-engine";
-import { TIMELINE_GUTTER_PX } from "@/components/timeline/time-view";
+import { TIMELINE_GUTTER_PX } from "@/components/timeline/gutter";
 import type { TeachingContext } from "./teaching";
 
 const { WaveFile } = wf;
@@ -136,6 +136,8 @@ export function playbackSteps({ page, baseUrl, shot }: TeachingContext): [string
       assert.equal(boxes[0]!.x, boxes[1]!.x);
       assert.equal(boxes[0]!.width, boxes[1]!.width);
       assert.equal(await page.locator("audio").count(), 1, "one recording element on the page");
+      // the STFT ran in a Web Worker (the CSP's worker-src allows the app's own scripts)
+      assert.equal(await timeline().getByTestId("spectrogram").getAttribute("data-via"), "worker");
       await timeline().scrollIntoViewIfNeeded();
       await shot(page, "6a-take-timeline");
       // Ctrl + wheel zooms about the pointer, Shift + wheel scrolls: both write the shared window

@@ -4,9 +4,9 @@
  */
 import type { EditorNote, NoteList } from "@/lib/editor";
 
-/** Width of the keyboard down the left and height of the time ruler along the top (CSS px). */
+/** Width of the keyboard down the left and height of the time ruler along the top (CSS px: seconds above, bars and beats below). */
 export const KEYBOARD_PX = 56;
-export const RULER_PX = 24;
+export const RULER_PX = 34;
 /** How near (px) to a note's end a press grabs that end for stretching. */
 export const EDGE_GRAB_PX = 6;
 

@@ -1,19 +1,18 @@
 "use client";
 import { Alert, Cents, Mono } from "@/components/ui";
+import { soundingAt } from "@/lib/editor";
 import { midiToNoteName } from "@/lib/music/pitch";
 import { formatSeconds } from "./format";
 import type { TakeNote } from "./types";
 
 /**
  * The notes sounding at a moment of the take (the tuning report's "open in take" links pass
- * `?t=<seconds>`), until the piano roll can scroll there itself.
+ * `?t=<seconds>`), in words; the piano roll scrolls there and selects the same notes.
  */
 export function FocusedNotes({ notes, atSec }: { notes: TakeNote[]; atSec: number }) {
-  const sounding = notes
-    .filter((n) => n.onsetSec - 0.05 <= atSec && atSec < n.offsetSec)
-    .sort((a, b) => a.pitch - b.pitch);
+  const sounding = soundingAt(notes, atSec).sort((a, b) => a.pitch - b.pitch);
   return (
-    <Alert tone="info" title={<>At <Mono>{formatSeconds(atSec)} s</Mono></>}>
+    <Alert tone="info" title={<>At <Mono>{formatSeconds(atSec)} s</Mono> — selected in the piano roll</>}>
       {sounding.length === 0 ? (
         "No note sounds at this moment."
       ) : (

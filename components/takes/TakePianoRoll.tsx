@@ -1,22 +1,45 @@
 "use client";
-import { useMemo } from "react";
-import { PianoRoll } from "@/components/piano-roll";
-import { withIds } from "@/lib/editor";
-import type { TakeNote } from "./types";
+import { NoteEditor, type RollFrame } from "@/components/editor/NoteEditor";
+import { TakeTimeline, type TimeView } from "@/components/timeline";
 
 /**
- * The take's notes in the piano roll, read-only for now: selecting, scrolling and zooming
- * work; editing and saving revisions from it are the next step of the editor.
+ * The take page's recording and piano roll: the timeline (transport, waveform, spectrogram)
+ * with the editor workspace's roll inside it, for editors and owners; the same read-only for
+ * listeners (selection, zoom and full playback).
  */
-export function TakePianoRoll({ notes, durationSec }: { notes: TakeNote[]; durationSec: number }) {
-  // a stable list: a new array would look like another revision and restart the roll's history
-  const editorNotes = useMemo(() => withIds(notes), [notes]);
+export function TakePianoRoll({
+  takeId,
+  durationSec,
+  canEdit,
+  timeView,
+  focusSec,
+  draftAt,
+  noNotesText,
+}: {
+  takeId: string;
+  durationSec: number;
+  canEdit: boolean;
+  timeView: TimeView;
+  focusSec: number | null;
+  draftAt: string | null;
+  noNotesText: string;
+}) {
+  // transport, waveform and spectrogram above the roll, all on the page's one time view
+  const frame: RollFrame = (roll, notes, referenceHz) => (
+    <TakeTimeline takeId={takeId} audioUrl={`/api/v1/takes/${takeId}/audio`} durationSec={durationSec} referenceHz={referenceHz} notes={notes} timeView={timeView}>
+      {roll}
+    </TakeTimeline>
+  );
   return (
-    <div className="space-y-2">
-      <PianoRoll notes={editorNotes} onChange={() => undefined} readOnly durationSec={durationSec} tool="select" heightPx={360} />
-      <p className="text-xs text-ink-muted">
-        Ctrl/⌘ + wheel zooms time, Alt + wheel zooms pitch, Shift + wheel scrolls time. Colours show voices.
-      </p>
-    </div>
+    <NoteEditor
+      takeId={takeId}
+      durationSec={durationSec}
+      canEdit={canEdit}
+      timeView={timeView}
+      focusSec={focusSec}
+      frame={frame}
+      draftAt={draftAt}
+      noNotesText={noNotesText}
+    />
   );
 }

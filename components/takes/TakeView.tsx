@@ -11,7 +11,6 @@ import { AnalysisStatus } from "./AnalysisStatus";
 import { formatBytes, formatChannels, formatDuration, formatSampleRate } from "./format";
 import { NotesTable } from "./NotesTable";
 import { ReanalyseForm, startingSettings } from "./ReanalyseForm";
-import { TakePlayer } from "./TakePlayer";
 import { isRunning } from "./types";
 import { useDeleteTake } from "./use-delete-take";
 import { ExportDialog } from "@/components/export/ExportDialog";
@@ -21,6 +20,7 @@ import { TakePianoRoll } from "./TakePianoRoll";
 import { useNotes } from "./use-notes";
 import { useTake } from "./use-take";
 import { takeDeleteMessage } from "./take-delete";
+import { useTimeView } from "@/components/timeline/time-view";
 
 /** The take page: header, analysis with live progress, player, notes, analyses, re-analyse. */
 export function TakeView({
@@ -44,6 +44,8 @@ export function TakeView({
   const focusSec = focusParam !== null && Number.isFinite(Number(focusParam)) && Number(focusParam) >= 0 ? Number(focusParam) : null;
   const take = useTake(takeId);
   const notes = useNotes(takeId);
+  // one time axis for the take page's aligned views (timeline and piano roll)
+  const timeView = useTimeView(take.data?.take.durationSec ?? 0);
   const remove = useDeleteTake();
   const [deleting, setDeleting] = useState(false);
   const [exporting, setExporting] = useState(false);
@@ -117,15 +119,24 @@ export function TakeView({
         <AnalysisStatus analysis={analysis} canEdit={canEdit} />
       </Card>
 
-      <Card title="Original recording">
-        <TakePlayer takeId={t.id} takeName={t.name} />
+      <Card
+        title="Recording and piano roll"
+        description={
+          canEdit
+            ? "Correct the notes here: every change is saved as a new numbered revision."
+            : "Read-only: select notes, zoom and listen."
+        }
+      >
+        <TakePianoRoll
+          takeId={t.id}
+          durationSec={t.durationSec}
+          canEdit={canEdit}
+          timeView={timeView}
+          focusSec={focusSec}
+          draftAt={analysis?.state === "ready" ? (analysis.finishedAt ?? null) : null}
+          noNotesText={isRunning(analysis) ? "The piano roll appears when the analysis is ready." : analysis?.state === "failed" ? "No notes: the analysis failed." : "No notes yet."}
+        />
       </Card>
-
-      {notes.data && notes.data.notes.length > 0 ? (
-        <Card title="Piano roll">
-          <TakePianoRoll notes={notes.data.notes} durationSec={t.durationSec} />
-        </Card>
-      ) : null}
 
       <Card
         title="Notes"

@@ -38,13 +38,9 @@ export type ToolbarProps = {
   onPaste: () => void;
   onDelete: () => void;
   onResetCents: () => void;
-  /** 0 = off; else steps per beat. */
-  snap: number;
-  onSnap: (subdivision: number) => void;
-  hasTempo: boolean;
 };
 
-/** The editing tools, undo/redo, clipboard and snap. Listeners do not get it. */
+/** The editing tools, undo/redo and the clipboard. Listeners do not get it. */
 export function EditorToolbar(p: ToolbarProps) {
   const mod = typeof navigator !== "undefined" && /Mac|iPhone|iPad/.test(navigator.platform) ? "⌘" : "Ctrl";
   return (
@@ -92,15 +88,22 @@ export function EditorToolbar(p: ToolbarProps) {
         </Button>
       </div>
 
+    </div>
+  );
+}
+
+/** Snap to the beat grid: off, or a subdivision of the beat (needs a tempo). */
+export function SnapSelect({ value, onChange, hasTempo }: { value: number; onChange: (subdivision: number) => void; hasTempo: boolean }) {
+  return (
       <label className="flex items-center gap-2 text-sm">
         <span className="text-ink-muted">Snap</span>
         <select
           aria-label="Snap to grid"
           className={compactControl("w-28")}
-          value={p.hasTempo ? p.snap : 0}
-          disabled={!p.hasTempo}
-          title={p.hasTempo ? undefined : "Set a tempo to snap to beats"}
-          onChange={(e) => p.onSnap(Number(e.target.value))}
+          value={hasTempo ? value : 0}
+          disabled={!hasTempo}
+          title={hasTempo ? undefined : "Set a tempo to snap to beats"}
+          onChange={(e) => onChange(Number(e.target.value))}
         >
           <option value={0}>Off</option>
           {SNAP_SUBDIVISIONS.map((s) => (
@@ -110,6 +113,5 @@ export function EditorToolbar(p: ToolbarProps) {
           ))}
         </select>
       </label>
-    </div>
   );
 }

@@ -316,7 +316,7 @@ function Workspace({ takeId, durationSec, canEdit, timeView, focusSec = null, fr
   return (
     <div ref={workspaceRef} className="space-y-3" data-testid="note-editor" data-editable={canEdit}>
       {canEdit ? (
-        <div className="flex flex-wrap items-start justify-between gap-3">
+        <div className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2">
           <EditorToolbar
             tool={tool}
             onTool={setTool}
@@ -330,18 +330,10 @@ function Workspace({ takeId, durationSec, canEdit, timeView, focusSec = null, fr
             onPaste={pasteAt}
             onDelete={editor.remove}
             onResetCents={editor.resetCents}
-            snap={snap}
-            onSnap={setSnap}
-            hasTempo={!!meter.meter}
           />
           <SaveStatus status={save.status} revision={save.baseRevision} error={save.error} onRetry={save.retry} />
         </div>
       ) : null}
-      <ViewControls
-        timeView={timeView}
-        meter={meter}
-        assignment={{ available: !!expected, shown: showAssignment, onToggle: setShowAssignment, loading: assignment.isPending }}
-      />
       {save.status === "conflict" ? (
         <ConflictPanel
           mine={editor.notes}
@@ -367,6 +359,12 @@ function Workspace({ takeId, durationSec, canEdit, timeView, focusSec = null, fr
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_16rem]">
         <div className="min-w-0 space-y-2">
           {frame ? frame(roll, editor.notes, referenceHz) : roll}
+          <ViewControls
+            timeView={timeView}
+            meter={meter}
+            snap={canEdit ? { value: snap, onChange: setSnap } : null}
+            assignment={{ available: !!expected, shown: showAssignment, onToggle: setShowAssignment, loading: assignment.isPending }}
+          />
           <p className="text-xs text-ink-muted">
             Ctrl/⌘ + wheel zooms time, Alt + wheel zooms pitch, Shift + wheel scrolls time. Click the ruler to move the playhead, drag on it to
             loop a stretch, double-click it to clear the loop. Hover a note for its cents; colours show voices.

@@ -1,17 +1,20 @@
 "use client";
 import { Button } from "@/components/ui";
 import type { TimeView } from "@/components/timeline/time-view";
-import { compactControl } from "./EditorToolbar";
+import { SnapSelect, compactControl } from "./EditorToolbar";
 import type { useMeter } from "./use-meter";
 
-/** Zoom, tempo and what the roll overlays: for editors and listeners alike. */
+/** Zoom, tempo (and, for editors, the snap grid) and what the roll overlays. */
 export function ViewControls({
   timeView,
   meter,
+  snap,
   assignment,
 }: {
   timeView: TimeView;
   meter: ReturnType<typeof useMeter>;
+  /** Editors only: the snap grid, beside the tempo it needs. */
+  snap: { value: number; onChange: (subdivision: number) => void } | null;
   assignment: { available: boolean; shown: boolean; onToggle: (shown: boolean) => void; loading: boolean };
 }) {
   const zoom = (factor: number) => {
@@ -56,6 +59,7 @@ export function ViewControls({
           ))}
         </select>
       </label>
+      {snap ? <SnapSelect value={snap.value} onChange={snap.onChange} hasTempo={!!meter.meter} /> : null}
       {meter.error ? (
         <span id="tempo-error" role="alert" className="text-danger">
           {meter.error}

@@ -90,6 +90,11 @@ export function TakeView({
   }
 
   const t = take.data.take;
+  const analysisCard = (
+    <Card title="Analysis">
+      <AnalysisStatus analysis={analysis} canEdit={canEdit} />
+    </Card>
+  );
   return (
     <div className="space-y-6">
       <BackLink projectId={projectId} projectName={projectName} />
@@ -115,9 +120,8 @@ export function TakeView({
         }
       />
 
-      <Card title="Analysis">
-        <AnalysisStatus analysis={analysis} canEdit={canEdit} />
-      </Card>
+      {/* while the engine works (or failed) its state comes first; once ready, the recording and the roll do */}
+      {analysis?.state !== "ready" ? analysisCard : null}
 
       <Card
         title="Recording and piano roll"
@@ -137,6 +141,8 @@ export function TakeView({
           noNotesText={isRunning(analysis) ? "The piano roll appears when the analysis is ready." : analysis?.state === "failed" ? "No notes: the analysis failed." : "No notes yet."}
         />
       </Card>
+
+      {analysis?.state === "ready" ? analysisCard : null}
 
       <Card
         title="Notes"

@@ -118,7 +118,7 @@ export function Spectrogram({ view, audio, audioUrl, widthPx }: { view: TimeView
             ctx.fillStyle = theme.rule;
             ctx.fillRect(TIMELINE_GUTTER_PX - 6, Math.round(y), 5, 1);
             ctx.fillStyle = theme.muted;
-            ctx.fillText(midiToNoteName(p), 6, y);
+            ctx.fillText(midiToNoteName(p), 6, Math.min(HEIGHT_PX - 6, Math.max(6, y)));
           }
         }
       },

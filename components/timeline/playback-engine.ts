@@ -19,7 +19,7 @@
  * The engine is a plain class (no React): the hook in use-playback.ts adapts it.
  */
 import { MediaClock } from "./clock";
-import { loopCut, notesSoundingAt, notesStartingIn, sortByOnset, type NoteStart, type PlayNote } from "./schedule";
+import { followLoop, notesSoundingAt, notesStartingIn, sortByOnset, type NoteStart, type PlayNote } from "./schedule";
 import { INITIAL_LEVEL, mixGains, soundingHz, type ListenMode } from "./sounding";
 import { DEFAULT_SYNTH_VOICE, makeSynth, type AnyPolySynth, type SynthVoiceId } from "./synth-voices";
 import type { TimeView } from "./time-view";
@@ -162,6 +162,8 @@ export class PlaybackEngine {
   private noteErrSum = 0;
   private disposed = false;
   private lastReading = -1;
+  /** Playback is inside the loop region (and wraps at its end). */
+  private inLoop = false;
   private latencySmoothSec: number | null = null;
 
   constructor(private readonly view: TimeView) {}
@@ -294,6 +296,8 @@ export class PlaybackEngine {
     const length = this.state.durationSec ?? this.view.get().durationSec;
     const t = Math.max(0, Math.min(length || Infinity, sec));
     if (audio) audio.currentTime = t;
+    const loop = this.view.get().loop;
+    this.inLoop = !!loop && t >= loop.startSec && t < loop.endSec;
     this.view.setPlayhead(t);
     if (this.state.playing) this.restartNotes();
   }
@@ -405,7 +409,10 @@ export class PlaybackEngine {
   private startRunning(): void {
     this.stopTimers();
     this.clock.reset();
-    this.lastReading = -1;
+    this.lastReading = this.audio?.currentTime ?? -1;
+    const loop = this.view.get().loop;
+    const at = this.audio?.currentTime ?? 0;
+    this.inLoop = !!loop && at >= loop.startSec && at < loop.endSec;
     this.scheduledUntil = null;
     this.freshVoices();
     this.timer = setInterval(() => this.tick(), TICK_SEC * 1000);
@@ -435,8 +442,11 @@ export class PlaybackEngine {
   /** After a seek, a wrap, a stall or a voice change: read the clock again, start what sounds there. */
   private restartNotes(): void {
     if (!this.state.playing) return;
+    if (this.wrapTimer) clearTimeout(this.wrapTimer);
+    this.wrapTimer = null;
     this.clock.reset();
-    this.lastReading = -1;
+    // the position just set is not a reading: wait until the element moves on from it
+    this.lastReading = this.audio?.currentTime ?? -1;
     this.scheduledUntil = null;
     this.checks = [];
     this.freshVoices();
@@ -456,7 +466,14 @@ export class PlaybackEngine {
     if (reading) this.checkNotes(mediaNow, ctxNow);
     const pos = this.clock.mediaAt(ctxNow);
     const loop = this.view.get().loop;
-    const cut = loopCut(pos, loop);
+    const follow = followLoop(this.inLoop, pos, loop);
+    this.inLoop = follow.inside;
+    // past the loop's end by the clock or by the element's own position: wrap now
+    if (loop && (follow.wrap || (this.inLoop && reading && mediaNow >= loop.endSec))) {
+      this.wrap();
+      return;
+    }
+    const cut = loop && this.inLoop ? loop.endSec : Infinity;
 
     if (this.scheduledUntil === null) {
       for (const s of notesSoundingAt(this.sorted, pos, cut)) this.hand(s, ctxNow);
@@ -468,17 +485,19 @@ export class PlaybackEngine {
       this.scheduledUntil = to;
     }
     // wrap at the loop's end, on time: a timer for the exact moment once it is near
-    if (loop && cut === loop.endSec && !this.wrapTimer && pos + 2 * TICK_SEC >= loop.endSec) {
+    if (loop && this.inLoop && !this.wrapTimer && pos + 2 * TICK_SEC >= loop.endSec) {
       const inMs = Math.max(0, (this.clock.contextAt(loop.endSec) - ctxNow) * 1000);
       this.wrapTimer = setTimeout(() => this.wrap(), inMs);
     }
   }
 
   private wrap(): void {
+    if (this.wrapTimer) clearTimeout(this.wrapTimer);
     this.wrapTimer = null;
     const loop = this.view.get().loop;
     const audio = this.audio;
     if (!loop || !audio || !this.state.playing) return;
+    this.inLoop = true;
     this.wrapping = true;
     audio.currentTime = loop.startSec;
     this.wrapping = false;

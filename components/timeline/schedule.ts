@@ -64,18 +64,13 @@ export function notesSoundingAt(sorted: readonly PlayNote[], sec: number, cutSec
 }
 
 /**
- * Where the scheduler's window ends and notes are cut for a loop: inside an active loop
- * (start ≤ position < end) both are the loop's end; otherwise the window runs on.
+ * Following a loop: playback is inside it once its position lies between the loop's ends; it
+ * stays inside past the end (a tick's overshoot) and must then wrap to the start; a position
+ * before the start (a seek) leaves it, and one that never was inside plays on past it.
  */
-export function loopCut(positionSec: number, loop: LoopRegion | null): number {
-  return loop && positionSec >= loop.startSec && positionSec < loop.endSec ? loop.endSec : Infinity;
-}
-
-/**
- * Whether playback at `positionSec` has reached the end of the loop it was playing inside (it
- * was at `previousSec` a tick ago) and must wrap to the loop's start.
- */
-export function loopWrapDue(previousSec: number, positionSec: number, loop: LoopRegion | null): boolean {
-  if (!loop) return false;
-  return previousSec >= loop.startSec && previousSec < loop.endSec && positionSec >= loop.endSec;
+export function followLoop(wasInside: boolean, positionSec: number, loop: LoopRegion | null): { inside: boolean; wrap: boolean } {
+  if (!loop) return { inside: false, wrap: false };
+  if (positionSec >= loop.startSec && positionSec < loop.endSec) return { inside: true, wrap: false };
+  if (positionSec < loop.startSec) return { inside: false, wrap: false };
+  return { inside: wasInside, wrap: wasInside };
 }

@@ -219,6 +219,8 @@ export function playbackSteps({ page, baseUrl, shot }: TeachingContext): [string
       await waitPlaying(false);
     }],
     ["playback: a click on the ruler seeks; a drag along it sets a loop that playback wraps inside; space plays and pauses", async () => {
+      await page.reload(); // the whole take across, as on arrival
+      await timeline().locator('[data-testid="waveform"][data-state="ready"]').waitFor({ timeout: 30_000 });
       const wave = timeline().getByTestId("waveform");
       await wave.scrollIntoViewIfNeeded();
       const box = (await wave.boundingBox())!;

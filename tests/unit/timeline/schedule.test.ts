@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { MediaClock } from "@/components/timeline/clock";
-import { MIN_REMAINDER_SEC, firstOnsetAtOrAfter, loopCut, loopWrapDue, notesSoundingAt, notesStartingIn, sortByOnset, type PlayNote } from "@/components/timeline/schedule";
+import { MIN_REMAINDER_SEC, firstOnsetAtOrAfter, followLoop, notesSoundingAt, notesStartingIn, sortByOnset, type PlayNote } from "@/components/timeline/schedule";
 import { LOOKAHEAD_SEC, TICK_SEC } from "@/components/timeline/playback-engine";
 import { rng } from "@/tests/support/random";
 
@@ -55,21 +55,23 @@ describe("the note scheduler's windows", () => {
 
   it("inside a loop the window stops at the loop's end and notes are cut there; the wrap is due on crossing it", () => {
     const loop = { startSec: 1, endSec: 2 };
-    expect(loopCut(1.5, loop)).toBe(2);
-    expect(loopCut(0.5, loop)).toBe(Infinity); // before the loop: play on into it
-    expect(loopCut(2.5, loop)).toBe(Infinity); // started after it: play on
-    expect(loopCut(1.5, null)).toBe(Infinity);
+    // inside once between the ends; before the loop or never inside: play on
+    expect(followLoop(false, 1.5, loop)).toEqual({ inside: true, wrap: false });
+    expect(followLoop(false, 0.5, loop)).toEqual({ inside: false, wrap: false });
+    expect(followLoop(false, 2.5, loop)).toEqual({ inside: false, wrap: false });
+    expect(followLoop(true, 0.5, loop)).toEqual({ inside: false, wrap: false }); // a seek before it
+    expect(followLoop(true, 1.5, null)).toEqual({ inside: false, wrap: false });
+    // inside and past the end, however far a late tick overshoots: wrap
+    expect(followLoop(true, 2.0, loop)).toEqual({ inside: true, wrap: true });
+    expect(followLoop(true, 2.3, loop)).toEqual({ inside: true, wrap: true });
+    // the window inside the loop ends at the loop's end, and notes are cut there
     const notes = sortByOnset([note(1.9, 2.5), note(1.95, 1.97), note(2.01, 3)]);
-    const cut = loopCut(1.88, loop);
+    const cut = loop.endSec;
     const starts = notesStartingIn(notes, 1.88, Math.min(1.88 + LOOKAHEAD_SEC, cut), cut);
     expect(starts.map((s) => [s.note.onsetSec, +s.durationSec.toFixed(6)])).toEqual([
       [1.9, 0.1],
       [1.95, 0.02],
     ]);
-    expect(loopWrapDue(1.99, 2.0, loop)).toBe(true);
-    expect(loopWrapDue(1.5, 1.9, loop)).toBe(false);
-    expect(loopWrapDue(2.1, 2.2, loop)).toBe(false);
-    expect(loopWrapDue(0.5, 2.2, null)).toBe(false);
     // after the wrap, what sounds at the loop's start starts at once
     expect(notesSoundingAt(sortByOnset([note(0.5, 1.5), note(1, 1.2)]), loop.startSec, loop.endSec).map((s) => s.note.onsetSec)).toEqual([0.5, 1]);
   });

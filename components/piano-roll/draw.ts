@@ -150,23 +150,41 @@ export function drawBase(ctx: CanvasRenderingContext2D, f: BaseFrame): void {
   const { from, to } = visibleSlice(index, t0Sec, t1Sec);
   const curveColour = t.dark ? "rgba(20,24,31,0.75)" : "rgba(255,253,248,0.85)";
   const inset = v.rowPx >= 8 ? 1 : 0.5;
+  // one path and one fill per voice colour, then every pitch-curve line in one stroke: a frame
+  // costs a handful of canvas calls whatever the number of visible notes
+  const slots = t.voices.length;
   let selectedVisible = 0;
+  for (let slot = 0; slot < slots; slot++) {
+    ctx.fillStyle = t.voices[slot]!;
+    ctx.beginPath();
+    let any = false;
+    for (let k = from; k < to; k++) {
+      const n = notes[index.order[k]!]!;
+      if (n.offsetSec < t0Sec || n.pitch < lowPitch || n.pitch > highPitch || voiceSlot(n.voice) !== slot) continue;
+      const r = noteRect(v, n);
+      const x = Math.max(r.x, KEYBOARD_PX - 4);
+      const w = Math.max(1, Math.min(r.x + r.w, right + 4) - x);
+      const h = Math.max(1, r.h - 2 * inset);
+      ctx.roundRect(x, r.y + inset, w, h, Math.min(3, h / 3, w / 2));
+      any = true;
+      if (f.selection.has(n.id)) selectedVisible++;
+    }
+    if (any) ctx.fill();
+  }
+  ctx.strokeStyle = curveColour;
+  ctx.lineWidth = 1;
+  ctx.beginPath();
+  let curves = false;
   for (let k = from; k < to; k++) {
     const n = notes[index.order[k]!]!;
-    if (n.offsetSec < t0Sec || n.pitch < lowPitch || n.pitch > highPitch) continue;
+    if (!n.pitchCurve || n.pitchCurve.timeSec.length < 2 || n.offsetSec < t0Sec || n.pitch < lowPitch || n.pitch > highPitch) continue;
     const r = noteRect(v, n);
     const x = Math.max(r.x, KEYBOARD_PX - 4);
-    const w = Math.max(1, Math.min(r.x + r.w, right + 4) - x);
-    const y = r.y + inset;
-    const h = Math.max(1, r.h - 2 * inset);
-    const radius = Math.min(3, h / 3, w / 2);
-    ctx.fillStyle = t.voices[voiceSlot(n.voice)]!;
-    ctx.beginPath();
-    ctx.roundRect(x, y, w, h, radius);
-    ctx.fill();
-    if (n.pitchCurve && n.pitchCurve.timeSec.length > 1 && w > 6 && h >= 6) drawCurve(ctx, v, n.pitchCurve, x, y, w, h, curveColour);
-    if (f.selection.has(n.id)) selectedVisible++;
+    const w = Math.min(r.x + r.w, right + 4) - x;
+    const h = r.h - 2 * inset;
+    if (w > 6 && h >= 6) curves = traceCurve(ctx, v, n.pitchCurve, x, r.y + inset, w, h) || curves;
   }
+  if (curves) ctx.stroke();
   if (selectedVisible > 0) {
     ctx.strokeStyle = t.copper;
     ctx.lineWidth = 2;
@@ -284,49 +302,38 @@ export function drawTop(ctx: CanvasRenderingContext2D, f: TopFrame): void {
   ctx.restore();
 }
 
-function drawCurve(
-  ctx: CanvasRenderingContext2D,
-  v: Viewport,
-  curve: { timeSec: number[]; cents: number[] },
-  x: number,
-  y: number,
-  w: number,
-  h: number,
-  colour: string,
-) {
+/**
+ * Adds a note's pitch-curve line to the current path: the points inside the note's visible part
+ * (at most one per pixel), cents clamped to ±50 so the line stays inside the note. True when
+ * something was added.
+ */
+function traceCurve(ctx: CanvasRenderingContext2D, v: Viewport, curve: { timeSec: number[]; cents: number[] }, x: number, y: number, w: number, h: number): boolean {
   const mid = y + h / 2;
   const ts = curve.timeSec;
   // the curve's times are sorted: start at the first point inside the note's visible part
+  const fromSec = v.startSec + (x - KEYBOARD_PX) / v.pxPerSec;
   let lo = 0;
   let hi = ts.length;
-  const fromSec = v.startSec + (x - 2 - KEYBOARD_PX) / v.pxPerSec;
   while (lo < hi) {
     const m = (lo + hi) >>> 1;
     if (ts[m]! < fromSec) lo = m + 1;
     else hi = m;
   }
-  ctx.save();
-  ctx.beginPath();
-  ctx.rect(x, y, w, h);
-  ctx.clip();
-  ctx.strokeStyle = colour;
-  ctx.lineWidth = 1;
-  ctx.beginPath();
   let started = false;
   let lastX = -Infinity;
-  for (let i = Math.max(0, lo - 1); i < ts.length; i++) {
+  const span = (h - 2) / CURVE_SPAN_CENTS;
+  for (let i = lo; i < ts.length; i++) {
     const px = secToX(v, ts[i]!);
-    if (px > x + w + 2) break;
+    if (px > x + w) break;
     if (px - lastX < 1 && i < ts.length - 1) continue; // at most one point per pixel
     lastX = px;
     const c = curve.cents[i] ?? 0;
-    const py = mid - (Math.max(-CURVE_SPAN_CENTS / 2, Math.min(CURVE_SPAN_CENTS / 2, c)) / CURVE_SPAN_CENTS) * (h - 2);
+    const py = mid - Math.max(-CURVE_SPAN_CENTS / 2, Math.min(CURVE_SPAN_CENTS / 2, c)) * span;
     if (started) ctx.lineTo(px, py);
     else ctx.moveTo(px, py);
     started = true;
   }
-  if (started) ctx.stroke();
-  ctx.restore();
+  return started;
 }
 
 function drawRuler(ctx: CanvasRenderingContext2D, f: BaseFrame, step: number, meter: Meter | null) {

@@ -262,6 +262,10 @@ function Workspace({ takeId, durationSec, canEdit, timeView, focusSec = null, fr
 
   const revisions = useRevisionList(takeId);
   const who = useMemberNames();
+  // a conflict: the list learns who saved the newer revision, and when
+  useEffect(() => {
+    if (save.status === "conflict") void queryClient.invalidateQueries({ queryKey: editorKeys.revisions(takeId) });
+  }, [save.status, queryClient, takeId]);
 
   const restore = async (revision: number) => {
     setRestoring(revision);

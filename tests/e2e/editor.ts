@@ -174,6 +174,29 @@ export function editorSteps({ page, baseUrl, shot }: TeachingContext): [string, 
       assert.equal(dto.revision, startRevision + 4);
       assert.ok(dto.notes.some((m) => Math.abs(m.onsetSec - n.onsetSec) < 1e-6 && m.pitch === n.pitch + 1), "mine are saved");
     }],
+    ["editor: a save that fails keeps the edit and says why; Retry saves it", async () => {
+      const n = moved!;
+      const v = await rollView(page);
+      const p = v.at((n.onsetSec + n.offsetSec) / 2, n.pitch + 1);
+      await page.mouse.click(p.x, p.y);
+      await page.getByTestId("inspector-pitch").filter({ hasText: `MIDI ${n.pitch + 1}` }).waitFor();
+      await page.context().setOffline(true);
+      try {
+        await page.keyboard.press("ArrowDown");
+        const status = page.locator('[data-testid="save-status"][data-state="failed"]');
+        await status.waitFor({ timeout: 20_000 });
+        assert.match((await status.textContent()) ?? "", /could not be reached/);
+        await page.getByTestId("note-editor").scrollIntoViewIfNeeded();
+        await shot(page, "5f-editor-save-failed");
+      } finally {
+        await page.context().setOffline(false);
+      }
+      await page.getByTestId("save-status").getByRole("button", { name: "Retry" }).click();
+      await savedAs(startRevision + 5);
+      const dto = (await api(`/api/v1/takes/${takeId}/notes`)) as NotesDto;
+      assert.equal(dto.revision, startRevision + 5);
+      assert.ok(sameNotes(dto.notes, before), "the note is back where it was");
+    }],
     ["editor: a listener gets the same page read-only, and the API refuses their save (403)", async () => {
       await signIn("listener@example.com");
       await page.goto(takeUrl);

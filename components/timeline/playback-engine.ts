@@ -27,8 +27,14 @@ import type { TimeView } from "./time-view";
 type ToneModule = typeof import("tone");
 type ToneGain = InstanceType<ToneModule["Gain"]>;
 
-/** How far ahead of the recording notes are handed to the synthesiser, and how often (s). */
-export const LOOKAHEAD_SEC = 0.15;
+/**
+ * How far ahead of the recording notes are handed to the synthesiser, and how often (s). The
+ * synthesiser starts each at its exact context time however early it got it, so the lookahead
+ * only has to outlast the longest stall of the page's thread (a big re-render, a garbage
+ * collection: a few hundred ms on a busy machine) — and an edit to a note less than this far
+ * ahead is heard from the next pass.
+ */
+export const LOOKAHEAD_SEC = 0.5;
 export const TICK_SEC = 0.025;
 
 export const CAUTION_STORAGE_KEY = "tapernote.hearing-caution-seen";
@@ -73,6 +79,13 @@ export type PlaybackStats = {
   noteErrorMeanMs: number;
   /** Output latency the playhead takes off (ms), last value. */
   latencyMs: number;
+  /**
+   * Times the page's thread was blocked for more than 100 ms (a scheduler tick or an animation
+   * frame that late), and the longest. Frames right after such a stall are not counted in the
+   * playhead figures (the page drew nothing meanwhile); notes are, through lateness.
+   */
+  stalls: number;
+  longestStallMs: number;
   /** Frames where the playhead was more than 10 ms from the element's clock: [recording s, ms] (the first 40). */
   spikes: [number, number][];
 };
@@ -113,7 +126,7 @@ declare global {
 }
 
 function emptyStats(): PlaybackStats {
-  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0, spikes: [] };
+  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0, stalls: 0, longestStallMs: 0, spikes: [] };
 }
 
 function cautionSeen(): boolean {
@@ -162,6 +175,8 @@ export class PlaybackEngine {
   private noteErrSum = 0;
   private disposed = false;
   private lastReading = -1;
+  private lastTickMs: number | null = null;
+  private lastFrameMs: number | null = null;
   /** Playback is inside the loop region (and wraps at its end). */
   private inLoop = false;
   private latencySmoothSec: number | null = null;
@@ -425,6 +440,8 @@ export class PlaybackEngine {
   }
 
   private stopTimers(): void {
+    this.lastTickMs = null;
+    this.lastFrameMs = null;
     if (this.timer) clearInterval(this.timer);
     this.timer = null;
     if (this.wrapTimer) clearTimeout(this.wrapTimer);
@@ -458,6 +475,8 @@ export class PlaybackEngine {
     if (!audio || !g) return;
     const ctxNow = g.raw.currentTime;
     const mediaNow = audio.currentTime;
+    this.noteStall(this.lastTickMs);
+    this.lastTickMs = performance.now();
     // a position that has not moved since the last tick is stale (the element not yet started, or cached)
     const reading = !audio.paused && !audio.seeking && audio.readyState >= 3 && mediaNow !== this.lastReading;
     this.lastReading = mediaNow;
@@ -560,9 +579,21 @@ export class PlaybackEngine {
     return { sec: this.clock.mediaAt(heardCtx), latencySec };
   }
 
+  /** Counts a stall when more than 100 ms passed since `sinceMs` (a tick or a frame). */
+  private noteStall(sinceMs: number | null): boolean {
+    if (sinceMs === null) return false;
+    const gapMs = performance.now() - sinceMs;
+    if (gapMs <= 100) return false;
+    this.stats.stalls++;
+    this.stats.longestStallMs = Math.max(this.stats.longestStallMs, gapMs);
+    return true;
+  }
+
   private drawPlayhead(): void {
     const audio = this.audio;
     if (!audio || !this.state.playing) return;
+    const stalled = this.lastFrameMs !== null && performance.now() - this.lastFrameMs > 100;
+    this.lastFrameMs = performance.now();
     const heard = this.heardSec();
     if (!heard) return;
     const loop = this.view.get().loop;
@@ -573,7 +604,8 @@ export class PlaybackEngine {
     // the output latency, smoothed: ctx.currentTime moves in steps of the output's buffer, the
     // output timestamp smoothly, so their difference saws up and down by a buffer's length
     this.latencySmoothSec = this.latencySmoothSec === null ? heard.latencySec : this.latencySmoothSec + 0.02 * (heard.latencySec - this.latencySmoothSec);
-    if (!audio.paused && !audio.seeking && audio.readyState >= 3) {
+    const end = Number.isFinite(audio.duration) ? audio.duration : Infinity;
+    if (!stalled && !audio.paused && !audio.seeking && !audio.ended && audio.currentTime < end - 0.05 && audio.readyState >= 3) {
       const err = Math.abs(sec + this.latencySmoothSec - audio.currentTime) * 1000;
       const st = this.stats;
       st.frames++;

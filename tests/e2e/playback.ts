@@ -365,6 +365,8 @@ export function playbackSteps({ page, baseUrl, shot }: TeachingContext): [string
         lateNotes: stats.lateCount,
         lateMaxMs: +stats.lateMaxMs.toFixed(2),
         outputLatencyMs: +stats.latencyMs.toFixed(2),
+        pageStalls: stats.stalls,
+        longestStallMs: +stats.longestStallMs.toFixed(1),
         playheadSpikes: stats.spikes,
       };
       console.log(`     drift figures: ${JSON.stringify(figures)}`);

@@ -119,7 +119,8 @@ export class MultiPitchEstimator {
    * Estimate the pitches of one frame. Peaks must be sorted by frequency.
    * Writes up to voiceLimit detections at outOffset: fundamental (Hz, from the fundamental or
    * the lowest strong partial), level (linear amplitude, root-sum-square of the voice's
-   * partials) and salience. Returns the number of detections.
+   * partials) and salience; outSharedLevel (optional) receives the levels with shared
+   * partials split between the voices (see sharedLevels). Returns the number of detections.
    */
   estimate(
     freqHz: Float32Array,
@@ -129,6 +130,7 @@ export class MultiPitchEstimator {
     outLevel: Float32Array,
     outSalience: Float32Array,
     outOffset: number,
+    outSharedLevel?: Float32Array,
   ): number {
     if (n === 0) {
       this.prev.fill(0);
@@ -222,7 +224,48 @@ export class MultiPitchEstimator {
       count++;
     }
     this.prev.set(this.cur);
-    return this.dropOctaveShadows(freqHz, amp, n, outF0Hz, outLevel, outSalience, outOffset, count);
+    const kept = this.dropOctaveShadows(freqHz, amp, n, outF0Hz, outLevel, outSalience, outOffset, count);
+    if (outSharedLevel) this.sharedLevels(freqHz, amp, n, outF0Hz, outLevel, outSharedLevel, outOffset, kept);
+    return kept;
+  }
+
+  /**
+   * Level of each detected voice with shared partials split between the voices they belong
+   * to: L_i = √(Σ_{h ≤ H} a_h² / m_h), a_h the original peak amplitude at h·f0_i (±30 cents),
+   * m_h the number of detected voices (itself included) with a partial within ±30 cents of it.
+   * Concurrent harmonic sounds overlap at their common partials (Klapuri 2003, IEEE TSAP 11(6),
+   * the reason for the spectral-smoothness principle), and the iterative cancellation gives each
+   * overlapping partial to the voice found first, so residual levels overstate that voice
+   * against the rest (the third of a piano triad came out 11 dB under its fifth). Splitting the
+   * energy of an overlapping partial equally between its candidates is Tapernote's
+   * simplification; the note stage compares concurrent notes on this level.
+   */
+  private sharedLevels(freqHz: Float32Array, amp: Float32Array, n: number, f0s: Float32Array, lev: Float32Array, out: Float32Array, off: number, count: number): void {
+    if (count < 2) {
+      if (count === 1) out[off] = lev[off];
+      return;
+    }
+    const H = this.H;
+    const tol = 30 / 1200;
+    const lv = this.matchedAmp;
+    for (let i = 0; i < count; i++) {
+      const f0 = f0s[off + i];
+      let e = 0;
+      for (let h = 1; h <= H && h * f0 <= this.cfg.maxFreqHz; h++) {
+        const f = h * f0;
+        const a = this.ampAt(f, n, freqHz, amp);
+        if (a === 0) continue;
+        let m = 1;
+        for (let j = 0; j < count; j++) {
+          if (j === i) continue;
+          const k = Math.round(f / f0s[off + j]);
+          if (k >= 1 && Math.abs(Math.log2(f / (k * f0s[off + j]))) < tol) m++;
+        }
+        e += (a * a) / m;
+      }
+      lv[i] = Math.sqrt(e);
+    }
+    for (let i = 0; i < count; i++) out[off + i] = lv[i];
   }
 
   /** Salience of candidate c on the current residual (see the class comment). */

@@ -13,6 +13,8 @@ export interface FrameDetections {
   count: Uint8Array;
   f0Hz: Float32Array;
   level: Float32Array;
+  /** Level with shared partials split between the voices (multipitch `sharedLevels`); optional. */
+  sharedLevel?: Float32Array;
 }
 
 export interface TrackingConfig {
@@ -73,6 +75,8 @@ export interface TrackedNote {
   frames: Int32Array;
   f0Hz: Float32Array;
   level: Float32Array;
+  /** Levels with shared partials split between voices (for comparing concurrent notes). */
+  shared: Float32Array;
 }
 
 interface Track {
@@ -80,6 +84,7 @@ interface Track {
   t: number[];
   f: number[];
   l: number[];
+  s: number[];
   miss: number;
   matched: boolean;
 }
@@ -112,7 +117,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         }
       }
       if (!best) {
-        best = { f0: f, t: [], f: [], l: [], miss: 0, matched: false };
+        best = { f0: f, t: [], f: [], l: [], s: [], miss: 0, matched: false };
         active.push(best);
       }
       best.matched = true;
@@ -121,6 +126,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
       best.t.push(t);
       best.f.push(f);
       best.l.push(det.level[base + i]);
+      best.s.push(det.sharedLevel ? det.sharedLevel[base + i] : det.level[base + i]);
     }
     for (let k = active.length - 1; k >= 0; k--) {
       const tr = active[k];
@@ -270,6 +276,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         frames: Int32Array.from(tr.t.slice(seg[0], seg[1])),
         f0Hz: Float32Array.from(tr.f.slice(seg[0], seg[1])),
         level: Float32Array.from(tr.l.slice(seg[0], seg[1])),
+        shared: Float32Array.from(tr.s.slice(seg[0], seg[1])),
       });
     }
   }
@@ -300,6 +307,7 @@ function mergeFragments(notes: TrackedNote[], cents: number): TrackedNote[] {
           frames: concatI(p.frames, n.frames),
           f0Hz: concatF(p.f0Hz, n.f0Hz),
           level: concatF(p.level, n.level),
+          shared: concatF(p.shared, n.shared),
         };
         joined = true;
       }
@@ -327,21 +335,26 @@ function concatI(a: Int32Array, b: Int32Array): Int32Array {
 
 /**
  * Drop notes far below what sounds with them: more than `concurrentDb` under the loudest note
- * overlapping them, or more than `takeDb` under the loudest note of the take. On rendered
+ * overlapping them (compared on the levels with shared partials split between the voices,
+ * `TrackedNote.shared`), or more than `takeDb` under the loudest note of the take. On rendered
  * instruments nearly every such note was a leftover partial or noise (docs/engine.md).
  */
 function dropWeak(notes: TrackedNote[], concurrentDb: number, takeDb: number): TrackedNote[] {
-  const peakDb = notes.map((n) => {
+  const peakOf = (xs: Float32Array) => {
     let p = 0;
-    for (const l of n.level) if (l > p) p = l;
+    for (const l of xs) if (l > p) p = l;
     return 20 * Math.log10(p + 1e-12);
-  });
+  };
+  const peakDb = notes.map((n) => peakOf(n.level));
   const takeMax = Math.max(-200, ...peakDb);
+  // concurrent notes are compared on their shared-split levels: the residual level of the
+  // voice found first in a frame holds the partials it shares with the others
+  const cmpDb = notes.map((n) => peakOf(n.shared));
   return notes.filter((n, i) => {
     if (peakDb[i] < takeMax - takeDb) return false;
     for (let j = 0; j < notes.length; j++) {
       const o = notes[j];
-      if (o.onsetSec < n.offsetSec && o.offsetSec > n.onsetSec && peakDb[j] > peakDb[i] + concurrentDb) return false;
+      if (o.onsetSec < n.offsetSec && o.offsetSec > n.onsetSec && cmpDb[j] > cmpDb[i] + concurrentDb) return false;
     }
     return true;
   });

@@ -121,6 +121,7 @@ export async function transcribe(
     count: new Uint8Array(frames),
     f0Hz: new Float32Array(frames * V),
     level: new Float32Array(frames * V),
+    sharedLevel: new Float32Array(frames * V),
   };
   const salience = new Float32Array(frames * V);
   const odf = new Float32Array(frames);
@@ -164,7 +165,7 @@ export async function transcribe(
         store.put(t, pf, pa, from, n);
       }
     }
-    det.count[t] = est.estimate(pf, pa, n, det.f0Hz, det.level, salience, t * V);
+    det.count[t] = est.estimate(pf, pa, n, det.f0Hz, det.level, salience, t * V, det.sharedLevel);
     if (onProgress && t % progressEvery === 0) onProgress(0.1 + (0.8 * t) / frames);
   }
   const onsetFrames = pickOnsets(odf);

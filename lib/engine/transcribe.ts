@@ -8,20 +8,15 @@ import { SpectralFlux, pickOnsets } from "./onsets";
 import { trackNotes, median, type FrameDetections } from "./notes";
 import { steadyPitchHz, estimateReferenceHz, pitchAndCents, attackSkipSec } from "./tuning";
 import { midiToHz } from "../music/pitch";
+import type { CurvedNoteEvent } from "../music/note";
 
-/** One note of a draft. `pitch` is the nearest 12-TET MIDI note at A4 = 440 Hz, `cents` the deviation. */
-export interface Note {
-  onsetSec: number;
-  offsetSec: number;
-  pitch: number;
-  cents: number;
-  /** 1 … 127, from the note's level (SoundFont 2 default curve: −40·log10(127/v) dB). */
-  velocity: number;
-  /** Voice number (1 = the first voice), assigned so a voice never overlaps itself. */
-  voice: number;
-  /** Pitch curve: frame times and cents from `pitch` (10 ms hop by default). */
-  pitchCurve?: { timeSec: number[]; cents: number[] };
-}
+/**
+ * One note of a draft (the shared note event, lib/music/note.ts). `pitch` is the nearest 12-TET
+ * MIDI note at A4 = 440 Hz, `cents` the deviation; velocity 1 … 127 from the note's level
+ * (SoundFont 2 default curve: −40·log10(127/v) dB); voices numbered from 1 so a voice never
+ * overlaps itself; the pitch curve at the frame hop (10 ms by default).
+ */
+export type Note = CurvedNoteEvent;
 
 export interface Transcription {
   durationSec: number;

@@ -57,25 +57,6 @@ export function TakeTimeline({ takeId, audioUrl, durationSec, referenceHz, notes
     }
   }, [width, timeView, durationSec]);
 
-  // While playing, turn the page when the playhead runs off the right edge, as a reader of a
-  // score would; a view scrolled away by hand (playhead not in sight) is left where it is.
-  const { engine } = player;
-  useEffect(() => {
-    let inSight = false;
-    return timeView.subscribe((s, changed) => {
-      if (!changed.playhead || s.areaWidthPx <= 0) return;
-      const { startSec, pxPerSec } = s.window;
-      const spanSec = s.areaWidthPx / pxPerSec;
-      const wasInSight = inSight;
-      inSight = s.playheadSec >= startSec && s.playheadSec <= startSec + spanSec;
-      if (wasInSight && s.playheadSec > startSec + spanSec && engine.get().playing) {
-        inSight = true;
-        // after this change has reached every view, not in the middle of it
-        queueMicrotask(() => timeView.setWindow({ startSec: s.playheadSec - spanSec * 0.05, pxPerSec }));
-      }
-    });
-  }, [timeView, engine]);
-
   return (
     <div ref={root} className="overflow-hidden rounded-md border border-rule bg-paper" data-testid="take-timeline" data-take={takeId}>
       {/* the recording is the clock; it has no controls of its own */}

@@ -160,9 +160,10 @@ export type TakeNotes = {
   notes: NoteDto[];
 };
 
-/** "The notes" of a take: the latest revision, else the latest ready draft; 404 while there is neither. */
+/** "The notes" of a take: the latest revision, else the latest ready draft; `revision: 0` is that draft; 404 while there is neither. */
 export async function getTakeNotes(studioId: string, takeId: string, opts: { revision?: number } = {}): Promise<TakeNotes> {
   await getTakeRow(studioId, takeId);
+  if (opts.revision === 0) return latestDraftNotes(takeId);
   const revQuery = db()
     .select({ number: revision.number, referenceHz: revision.referenceHz, notesJson: revision.notesJson })
     .from(revision)
@@ -172,6 +173,10 @@ export async function getTakeNotes(studioId: string, takeId: string, opts: { rev
   const [rev] = await revQuery;
   if (rev) return { source: "revision", revision: rev.number, referenceHz: rev.referenceHz, notes: JSON.parse(rev.notesJson) };
   if (opts.revision) throw notFound(`Revision ${opts.revision}`);
+  return latestDraftNotes(takeId);
+}
+
+async function latestDraftNotes(takeId: string): Promise<TakeNotes> {
   const [d] = await db()
     .select({ analysisId: draft.analysisId, referenceHz: draft.referenceHz, notesJson: draft.notesJson })
     .from(draft)
@@ -264,7 +269,9 @@ export async function getTakeNotesBody(studioId: string, takeId: string, opts: {
     .from(take)
     .where(and(eq(take.id, takeId), eq(take.studioId, studioId)));
   if (!version) throw notFound("This take");
-  const key = `${takeId}|${opts.revision ?? version.latestRevision ?? 0}|${opts.revision ? "" : (version.latestDraft ?? "")}|${opts.curves ? 1 : 0}`;
+  // a revision's notes never change; the draft's (revision 0 or no revision yet) change with each analysis
+  const revisionKey = opts.revision ?? version.latestRevision ?? 0;
+  const key = `${takeId}|${revisionKey}|${revisionKey === 0 ? (version.latestDraft ?? "") : ""}|${opts.curves ? 1 : 0}`;
   const hit = notesCache.get(key);
   if (hit !== undefined) {
     notesCache.delete(key);

@@ -95,7 +95,7 @@ const OPS: Op[] = [
   { method: "post", path: "/api/v1/takes/{takeId}/analyses", summary: "Re-analyse with other settings", body: z.object({ settings: settingsSchema.partial().optional() }), ok: { status: 202, schema: z.object({ analysis: analysisDto }) }, errors: [401, 403, 404, 422] },
   { method: "get", path: "/api/v1/analyses/{analysisId}", summary: "Get an analysis (state, progress, error)", ok: { status: 200, schema: z.object({ analysis: analysisDto }) }, errors: [401, 404] },
   { method: "post", path: "/api/v1/analyses/{analysisId}/cancel", summary: "Cancel a queued or running analysis", ok: { status: 200, schema: z.object({ analysis: analysisDto }) }, errors: [401, 403, 404, 409] },
-  { method: "get", path: "/api/v1/takes/{takeId}/notes", summary: "The take's notes: the latest revision, else the latest ready draft", ok: { status: 200, schema: notesDto }, errors: [400, 401, 404] },
+  { method: "get", path: "/api/v1/takes/{takeId}/notes", summary: "The take's notes: the latest revision, else the latest ready draft (query: revision=n for one revision, revision=0 for the draft, curves=1 for pitch curves)", ok: { status: 200, schema: notesDto }, errors: [400, 401, 404] },
   { method: "put", path: "/api/v1/takes/{takeId}/notes", summary: "Save corrected notes as the next revision", body: putNotesSchema, ok: { status: 201, schema: z.object({ revision: z.object({ number: z.number().int(), noteCount: z.number().int(), createdAt: z.string() }) }) }, errors: [401, 403, 404, 409, 422] },
   {
     method: "get",

@@ -86,6 +86,13 @@ describe("uploading a take", () => {
     const now = await (await call("GET", `/api/v1/takes/${takeId}/notes`, { cookie: editor })).json();
     expect(now).toMatchObject({ source: "revision", revision: 1 });
     expect(now.notes[0].pitch).toBe(draft.notes[0].pitch + 1);
+    // revision=0 is still the analysis's draft, unchanged; ?revision=1 the saved one; bad numbers 400
+    const theDraft = await (await call("GET", `/api/v1/takes/${takeId}/notes?revision=0`, { cookie: editor })).json();
+    expect(theDraft.source).toBe("draft");
+    expect(theDraft.notes).toEqual(draft.notes);
+    expect((await (await call("GET", `/api/v1/takes/${takeId}/notes?revision=1`, { cookie: editor })).json()).revision).toBe(1);
+    expect((await call("GET", `/api/v1/takes/${takeId}/notes?revision=-1`, { cookie: editor })).status).toBe(400);
+    expect((await call("GET", `/api/v1/takes/${takeId}/notes?revision=9`, { cookie: editor })).status).toBe(404);
     const bad = await call("PUT", `/api/v1/takes/${takeId}/notes`, { cookie: editor, body: { baseRevision: 1, notes: [{ onsetSec: 2, offsetSec: 1, pitch: 60 }] } });
     expect(bad.status).toBe(422);
     expect((await call("PUT", `/api/v1/takes/${takeId}/notes`, { cookie: listener, body: { baseRevision: 1, notes: [] } })).status).toBe(403);

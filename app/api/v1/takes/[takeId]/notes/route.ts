@@ -11,10 +11,11 @@ export const GET = route(async (request, { params }: Ctx) => {
   const actor = await requireActor(request);
   const url = new URL(request.url);
   const rev = url.searchParams.get("revision");
-  if (rev !== null && !/^[1-9][0-9]*$/.test(rev)) throw new AppError("bad_request", "revision must be a positive whole number.");
+  // revision=0 is the latest ready draft (the engine's notes), even when revisions exist
+  if (rev !== null && !/^(0|[1-9][0-9]*)$/.test(rev)) throw new AppError("bad_request", "revision must be a whole number (0 = the analysis's draft).");
   requireRole(actor, "read");
   const body = await getTakeNotesBody(actor.studioId, (await params).takeId, {
-    revision: rev ? Number(rev) : undefined,
+    revision: rev === null ? undefined : Number(rev),
     curves: url.searchParams.get("curves") === "1",
   });
   return new Response(body, { headers: { "content-type": "application/json" } });

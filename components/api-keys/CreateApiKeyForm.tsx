@@ -18,7 +18,7 @@ export function CreateApiKeyForm({
   const { errors, formError, busy, handleSubmit } = useZodForm(createApiKeySchema, onSubmit, "The key could not be created.");
 
   return (
-    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Create API key">
+    <form method="post" onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Create API key">
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <Field label="Name" htmlFor="api-key-name" error={errors.name} hint="What the key is for, e.g. “Nightly export script”.">
         <Input name="name" autoFocus maxLength={80} />

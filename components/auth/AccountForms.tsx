@@ -42,7 +42,7 @@ export function AccountForms({ name, email }: { name: string; email: string }) {
   return (
     <div className="grid gap-6 md:grid-cols-2">
       <Card>
-        <form onSubmit={nameForm.handleSubmit} noValidate className="space-y-4" aria-label="Your name">
+        <form method="post" onSubmit={nameForm.handleSubmit} noValidate className="space-y-4" aria-label="Your name">
           <h2 className="text-lg font-semibold">Profile</h2>
           <Field label="E-mail" htmlFor="account-email" hint="Your sign-in address.">
             <Input id="account-email" value={email} readOnly disabled />
@@ -56,7 +56,7 @@ export function AccountForms({ name, email }: { name: string; email: string }) {
         </form>
       </Card>
       <Card>
-        <form onSubmit={passwordForm.handleSubmit} noValidate className="space-y-4" aria-label="Change password">
+        <form method="post" onSubmit={passwordForm.handleSubmit} noValidate className="space-y-4" aria-label="Change password">
           <h2 className="text-lg font-semibold">Password</h2>
           <Field label="Current password" htmlFor="current-password" error={pwErrors.currentPassword}>
             <Input id="current-password" name="currentPassword" type="password" autoComplete="current-password" invalid={!!pwErrors.currentPassword} />

@@ -28,7 +28,7 @@ export function ForgotPasswordForm() {
     );
   }
   return (
-    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Reset your password">
+    <form method="post" onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Reset your password">
       <h1 className="text-xl font-semibold">Forgot your password?</h1>
       <p className="text-sm text-ink-muted">Enter your e-mail address and we will send you a link to choose a new one.</p>
       {formError ? <Alert tone="error">{formError}</Alert> : null}

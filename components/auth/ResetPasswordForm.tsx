@@ -29,7 +29,7 @@ export function ResetPasswordForm({ token }: { token: string | null }) {
   }
 
   return (
-    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Choose a new password">
+    <form method="post" onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Choose a new password">
       <h1 className="text-xl font-semibold">Choose a new password</h1>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <Field label="New password" htmlFor="password" error={errors.password} hint="At least 8 characters.">

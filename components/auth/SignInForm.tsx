@@ -24,7 +24,7 @@ export function SignInForm({ next, notice }: { next: string; notice?: string }) 
   );
 
   return (
-    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Sign in">
+    <form method="post" onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Sign in">
       <h1 className="text-xl font-semibold">Sign in</h1>
       {notice ? <Alert tone="success">{notice}</Alert> : null}
       {formError ? <Alert tone="error">{formError}</Alert> : null}

@@ -40,7 +40,7 @@ export function SignUpForm({ showDevMailbox }: { showDevMailbox: boolean }) {
   }
 
   return (
-    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Create an account">
+    <form method="post" onSubmit={handleSubmit} noValidate className="space-y-4" aria-label="Create an account">
       <h1 className="text-xl font-semibold">Create an account</h1>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <Field label="Your name" htmlFor="name" error={errors.name}>

@@ -68,7 +68,7 @@ export function ExportDialog({ takeId, open, onClose, canBuy }: { takeId: string
 
   return (
     <Dialog open={open} onClose={onClose} title="Export notes" size="md">
-      <form onSubmit={submit} noValidate className="space-y-4" aria-label="Export notes">
+      <form method="post" onSubmit={submit} noValidate className="space-y-4" aria-label="Export notes">
         <fieldset className="space-y-2">
           <legend className="mb-1 text-sm font-medium">Format</legend>
           {FORMATS.map((f) => (

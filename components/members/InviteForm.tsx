@@ -32,7 +32,7 @@ export function InviteForm() {
   }
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-3" aria-label="Invite someone">
+    <form method="post" onSubmit={submit} noValidate className="space-y-3" aria-label="Invite someone">
       <div className="grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-start">
         <Field label="E-mail" htmlFor="invite-email" error={errors.email}>
           <Input id="invite-email" name="email" type="email" invalid={!!errors.email} placeholder="name@example.org" />

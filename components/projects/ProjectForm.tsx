@@ -18,7 +18,7 @@ export function ProjectForm({
   const { errors, formError, busy, handleSubmit } = useZodForm(createProjectSchema, onSubmit, "Saving failed. Try again.");
 
   return (
-    <form onSubmit={handleSubmit} noValidate className="space-y-4" aria-label={submitLabel}>
+    <form method="post" onSubmit={handleSubmit} noValidate className="space-y-4" aria-label={submitLabel}>
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       <Field label="Name" htmlFor="project-name" error={errors.name}>
         <Input id="project-name" name="name" defaultValue={initial?.name} autoFocus invalid={!!errors.name} maxLength={120} />

@@ -27,7 +27,7 @@ export function CreateStudioCard() {
   }
   return (
     <Card className="mx-auto max-w-md">
-      <form onSubmit={submit} noValidate className="space-y-4">
+      <form method="post" onSubmit={submit} noValidate className="space-y-4">
         <h1 className="text-xl font-semibold">You are not in a studio</h1>
         <p className="text-sm text-ink-muted">Ask a studio owner for an invitation, or start a studio of your own.</p>
         <Field label="Studio name" htmlFor="new-studio-name" error={error}>

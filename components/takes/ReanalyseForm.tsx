@@ -85,7 +85,7 @@ export function ReanalyseForm({ takeId, initial, onStarted }: { takeId: string; 
 
   const err = (key: string) => errors[key];
   return (
-    <form onSubmit={submit} noValidate aria-label="Re-analyse with other settings" className="space-y-5">
+    <form method="post" onSubmit={submit} noValidate aria-label="Re-analyse with other settings" className="space-y-5">
       {formError ? <Alert tone="error">{formError}</Alert> : null}
       {started ? <Alert tone="success">A new analysis is queued. The earlier ones are kept.</Alert> : null}
 

@@ -76,6 +76,9 @@ export async function readUpload(request: Request): Promise<Omit<NewTake, "studi
 
   let decoded;
   try {
+    // The decode is tens of milliseconds of synchronous work: let the requests already waiting
+    // (note reads, progress polls) go first, so a burst of uploads does not hold them all up.
+    await new Promise<void>((resolve) => setImmediate(resolve));
     // checked at the analysis rate, so a long upload does not hold a full-rate copy in memory
     decoded = await decodeAudio(analysisBytes, { maxDurationSec: limits.maxDurationSec, resampleToHz: ANALYSIS_RATE_HZ });
   } catch (e) {

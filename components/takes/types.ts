@@ -1,15 +1,9 @@
+import type { NoteEvent } from "@/lib/music/note";
 import type { AnalysisDto } from "@/lib/schemas/takes";
 export type { AnalysisDto, TakeDto } from "@/lib/schemas/takes";
 
-/** One note of a take (`GET /api/v1/takes/{takeId}/notes`). */
-export type TakeNote = {
-  onsetSec: number;
-  offsetSec: number;
-  pitch: number;
-  cents: number;
-  velocity: number;
-  voice: number;
-};
+/** One note of a take (`GET /api/v1/takes/{takeId}/notes`): the shared note event. */
+export type TakeNote = NoteEvent;
 
 export type TakeNotesDto = {
   source: "draft" | "revision";

@@ -3,9 +3,10 @@
  * recording's time, and which are already sounding where playback starts. All times are
  * positions in the recording (s); the player turns them into AudioContext times.
  */
+import type { NoteEvent } from "@/lib/music/note";
 import type { LoopRegion } from "./time-view";
 
-export type PlayNote = { onsetSec: number; offsetSec: number; pitch: number; cents: number; velocity: number; voice: number };
+export type PlayNote = NoteEvent;
 
 /** A note to start at `startSec` (recording time) for `durationSec`. */
 export type NoteStart = { note: PlayNote; startSec: number; durationSec: number };

@@ -6,7 +6,8 @@
  * moved, stretched, transposed or re-voiced in velocity or cents. Whatever is left was removed
  * (only in `a`) or added (only in `b`).
  */
-export type DiffNote = { onsetSec: number; offsetSec: number; pitch: number; cents: number; velocity: number; voice: number };
+import type { NoteEvent } from "../music/note";
+export type DiffNote = NoteEvent;
 
 export type NoteDiff = {
   /** Indices into `b` of notes only in `b`. */

@@ -1,17 +1,7 @@
-/** A note as the piano roll edits it: the API's note (NAMES.md) plus a stable id for selection and undo. */
-export type EditorNote = {
-  id: string;
-  onsetSec: number;
-  offsetSec: number;
-  /** MIDI note number, 0–127 (60 = C4). */
-  pitch: number;
-  cents: number;
-  /** 1–127. */
-  velocity: number;
-  voice: number;
-  /** The measured pitch trace: absolute times (s) and cents relative to `pitch`. */
-  pitchCurve?: { timeSec: number[]; cents: number[] };
-};
+import type { CurvedNoteEvent } from "../music/note";
+
+/** A note as the piano roll edits it: the shared note event (with its pitch curve) plus a stable id for selection and undo. */
+export type EditorNote = CurvedNoteEvent & { id: string };
 
 export type NoteList = readonly EditorNote[];
 

@@ -18,6 +18,7 @@ import { TakeTeachingPanel } from "./TakeTeachingPanel";
 import { FocusedNotes } from "./FocusedNotes";
 import { TakePianoRoll } from "./TakePianoRoll";
 import { useNotes } from "./use-notes";
+import { useCurveNotes } from "@/components/report/use-curve-notes";
 import { useTake } from "./use-take";
 import { takeDeleteMessage } from "./take-delete";
 import { useTimeView } from "@/components/timeline/time-view";
@@ -44,6 +45,8 @@ export function TakeView({
   const focusSec = focusParam !== null && Number.isFinite(Number(focusParam)) && Number(focusParam) >= 0 ? Number(focusParam) : null;
   const take = useTake(takeId);
   const notes = useNotes(takeId);
+  // the piano roll's notes (with pitch curves) load beside the take, not after it
+  useCurveNotes(takeId);
   // one time axis for the take page's aligned views (timeline and piano roll)
   const timeView = useTimeView(take.data?.take.durationSec ?? 0);
   const remove = useDeleteTake();

@@ -5,6 +5,7 @@
 // are a history that is never rewritten.
 import assert from "node:assert/strict";
 import type { Page } from "playwright-core";
+import { signInAs } from "./harness";
 import { KEYBOARD_PX, RULER_PX } from "../../components/piano-roll/geometry";
 import type { TeachingContext } from "./teaching";
 
@@ -50,19 +51,7 @@ export function editorSteps({ page, baseUrl, shot }: TeachingContext): [string, 
   let before: Note[] = [];
   let moved: Note | null = null;
 
-  const signIn = async (email: string) => {
-    await page.goto(`${baseUrl}/projects`);
-    const signOut = page.getByRole("button", { name: "Sign out" });
-    await page.locator("#email").or(signOut).first().waitFor();
-    if (await signOut.count()) {
-      await signOut.first().click();
-      await page.waitForURL(/\/sign-in/);
-    }
-    await page.fill("#email", email);
-    await page.fill("#password", "tapernote-demo");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/projects/);
-  };
+  const signIn = (email: string) => signInAs(page, baseUrl, email);
   const api = async (path: string) => {
     const res = await page.request.get(`${baseUrl}${path}`);
     assert.equal(res.status(), 200, `${path} answered ${res.status()}`);

@@ -117,6 +117,31 @@ export async function shot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
 }
 
+/** Opens the projects page and signs out if someone is signed in; ends on the sign-in form. */
+export async function signOutIfSignedIn(page: Page, baseUrl: string): Promise<void> {
+  await page.goto(`${baseUrl}/projects`);
+  // signed out, the page moves on to the sign-in form (on the client, so wait for either)
+  const signOut = page.getByRole("button", { name: "Sign out" });
+  await page.locator("#email").or(signOut).first().waitFor();
+  if (!(await signOut.count())) return;
+  await signOut.first().click();
+  await page.waitForURL(/\/sign-in/);
+}
+
+/**
+ * Signs in as a demo account (password tapernote-demo, README) from wherever the page is:
+ * signs out first if someone is signed in, and waits for the form to hydrate (before that it
+ * would submit natively).
+ */
+export async function signInAs(page: Page, baseUrl: string, email: string): Promise<void> {
+  await signOutIfSignedIn(page, baseUrl);
+  await page.waitForLoadState("networkidle");
+  await page.fill("#email", email);
+  await page.fill("#password", "tapernote-demo");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(/\/projects/);
+}
+
 /** A tiny runner: each step prints ok/FAIL; the last line is "N passed, N failed". */
 export async function runSteps(steps: [string, () => Promise<void>][]): Promise<number> {
   let passed = 0;

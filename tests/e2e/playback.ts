@@ -6,6 +6,7 @@
 import assert from "node:assert/strict";
 import wf from "wavefile";
 import type { Page } from "playwright-core";
+import { signInAs } from "./harness";
 import type { PlaybackProbe } from "@/components/timeline/playback-engine";
 import { TIMELINE_GUTTER_PX } from "@/components/timeline/gutter";
 import type { TeachingContext } from "./teaching";
@@ -100,20 +101,7 @@ export function playbackSteps({ page, baseUrl, shot }: TeachingContext): [string
   let takeUrl = "";
   let projectUrl = "";
 
-  const signIn = async (email: string) => {
-    await page.goto(`${baseUrl}/projects`);
-    const signOut = page.getByRole("button", { name: "Sign out" });
-    await page.locator("#email").or(signOut).first().waitFor();
-    if (await signOut.count()) {
-      await signOut.first().click();
-      await page.waitForURL(/\/sign-in/);
-    }
-    await page.waitForLoadState("networkidle"); // the form is hydrated (or it would submit as a plain GET)
-    await page.fill("#email", email);
-    await page.fill("#password", "tapernote-demo");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/projects/);
-  };
+  const signIn = (email: string) => signInAs(page, baseUrl, email);
   const timeline = () => page.getByTestId("take-timeline");
   const play = () => timeline().getByTestId("transport-play");
   const waitPlaying = (playing: boolean) => page.waitForFunction((want) => window.__tapernotePlayback?.playing() === want, playing, { timeout: 20_000 });

@@ -6,6 +6,7 @@ import os from "node:os";
 import path from "node:path";
 import m from "@tonejs/midi";
 import type { Page } from "playwright-core";
+import { signInAs, signOutIfSignedIn } from "./harness";
 
 const { Midi } = m;
 
@@ -25,22 +26,7 @@ export function teachingSteps({ page, baseUrl, shot }: TeachingContext): [string
   let takeUrl = "";
   let shareUrl = "";
 
-  const signOutIfSignedIn = async () => {
-    await page.goto(`${baseUrl}/projects`);
-    // signed out, the page moves on to the sign-in form (on the client, so wait for either)
-    const signOut = page.getByRole("button", { name: "Sign out" });
-    await page.locator("#email").or(signOut).first().waitFor();
-    if (!(await signOut.count())) return;
-    await signOut.first().click();
-    await page.waitForURL(/\/sign-in/);
-  };
-  const signIn = async (email: string) => {
-    await signOutIfSignedIn();
-    await page.fill("#email", email);
-    await page.fill("#password", "tapernote-demo");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/projects/);
-  };
+  const signIn = (email: string) => signInAs(page, baseUrl, email);
 
   return [
     ["teaching: the teacher opens the demo chord exercise once its analysis is ready", async () => {
@@ -179,7 +165,7 @@ export function teachingSteps({ page, baseUrl, shot }: TeachingContext): [string
       await page.getByRole("button", { name: "Pause" }).click();
     }],
     ["teaching: the share link opens the replay without an account; a wrong one says so", async () => {
-      await signOutIfSignedIn();
+      await signOutIfSignedIn(page, baseUrl);
       await page.goto(shareUrl);
       await page.getByRole("heading", { name: TAKE }).waitFor();
       await page.getByTestId("comment-thread").filter({ hasText: COMMENT }).waitFor();

@@ -8,6 +8,7 @@ import type { TuningReportDto } from "@/components/report/types";
 import { NoteStrip } from "./NoteStrip";
 import { LISTEN_MODES, type ListenMode } from "./sounding";
 import { useReplayPlayer, type ReplayNote } from "./use-replay-player";
+import { LevelControl } from "@/components/timeline/LevelControl";
 
 const MODE_LABEL: Record<ListenMode, string> = { original: "Original", notes: "Notes", both: "Both" };
 const MODE_HINT: Record<ListenMode, string> = {
@@ -77,20 +78,7 @@ export function ReplayView({
             <p className="text-sm" data-testid="replay-clock">
               <Mono>{formatClock(player.positionSec)}</Mono> <span className="text-ink-muted">/</span> <Mono>{formatClock(length)}</Mono>
             </p>
-            <label className="ml-auto flex items-center gap-2 text-sm">
-              Level
-              <input
-                type="range"
-                min={0}
-                max={1}
-                step={0.05}
-                value={player.level}
-                onChange={(e) => player.setLevel(Number(e.target.value))}
-                className="w-28 accent-[var(--tn-copper)]"
-                aria-valuetext={`${Math.round(player.level * 100)} %`}
-              />
-              <Mono className="w-10 text-right">{Math.round(player.level * 100)} %</Mono>
-            </label>
+            <LevelControl level={player.level} onChange={player.setLevel} />
           </div>
           <p className="text-xs text-ink-muted">Listening to {MODE_HINT[player.mode]}.</p>
           <input

@@ -5,6 +5,7 @@ import { LISTEN_MODES, type ListenMode } from "./sounding";
 import { SYNTH_VOICES, isSynthVoice } from "./synth-voices";
 import { useTimeViewState, type TimeView } from "./time-view";
 import type { Playback } from "./use-playback";
+import { LevelControl } from "./LevelControl";
 
 export const MODE_LABEL: Record<ListenMode, string> = { original: "Original", notes: "Notes", both: "Both" };
 export const MODE_HINT: Record<ListenMode, string> = {
@@ -134,22 +135,7 @@ export function TransportBar({ player, view, lengthSec, hasNotes, referenceHz }:
             ))}
           </select>
         </label>
-        <label className="ml-auto flex items-center gap-2 text-sm">
-          Level
-          <input
-            type="range"
-            min={0}
-            max={1}
-            step={0.05}
-            value={player.level}
-            onChange={(e) => player.engine.setLevel(Number(e.target.value))}
-            className="w-24 accent-[var(--tn-copper)]"
-            aria-label="Level"
-            aria-valuetext={`${Math.round(player.level * 100)} %`}
-            data-testid="level"
-          />
-          <Mono className="w-10 text-right">{Math.round(player.level * 100)} %</Mono>
-        </label>
+        <LevelControl level={player.level} onChange={(l) => player.engine.setLevel(l)} />
       </div>
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
         <LoopControls view={view} />

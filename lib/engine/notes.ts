@@ -5,6 +5,7 @@
  * offsets corrected for the frame length of the note's register.
  */
 import type { PeakStore } from "./peaks";
+import { riseNear, type Attack } from "./attacks";
 
 export interface FrameDetections {
   /** Frames and slots per frame. */
@@ -63,6 +64,26 @@ export interface TrackingConfig {
   clearRiseDb?: number;
   /** Release: the note ends where its own partials fall this many dB within 30 ms (and twice that 30 ms later). */
   releaseDropDb?: number;
+  /** Per-pitch attacks (attacks.ts): the pitches whose energy is new at each onset. */
+  attacks?: Attack[];
+  /** Lead (s) of a note's start before its attack frame. */
+  attackFrameLeadSec?: number;
+  /** Notes from attacks alone (see addAttackNotes); least new share, range under the loudest new pitch (dB), least detection-function peak (× its 95th percentile). */
+  attackNotes?: boolean;
+  attackNoteShare?: number;
+  attackNoteDb?: number;
+  attackNoteOdf?: number;
+  /** …least new share at its fundamental, and least number of its first 10 partials in the attack spectrum. */
+  attackNoteF0Share?: number;
+  attackNoteParts?: number;
+  /** A note from an attack alone is at most this many dB under the loudest note sounding there (shared-split levels). */
+  attackNoteRangeDb?: number;
+  /** …no harmonic of a note that started less than this long before it (s)… */
+  attackNoteYoungSec?: number;
+  /** …no octave or twelfth of a sounding note more than this many dB louder… */
+  attackNoteOctaveDb?: number;
+  /** …and no harmonic or sub-harmonic of a sounding note whose unshared partials rose by at least this share of its energy. */
+  attackHostShare?: number;
 }
 
 /** One tracked note: frame span and per-frame fundamental and level. */
@@ -281,7 +302,146 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     }
   }
   out.sort((a, b) => a.onsetSec - b.onsetSec || a.f0Hz[0] - b.f0Hz[0]);
-  return dropWeak(pruneShadows(mergeFragments(out, cont), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
+  const kept = dropWeak(pruneShadows(mergeFragments(out, cont), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
+  if (!cfg.attacks || (cfg.attackNotes ?? true) === false) return kept;
+  return addAttackNotes(kept, cfg.attacks, cfg, det.frames, p95Odf, store ? (t, f) => store.harmonicLevelDb(t, f) : null);
+}
+
+/**
+ * Notes that the frame detections never showed but whose attack does: a pitch whose energy
+ * is nearly all new at an onset (a melody note on a held note's partials, cancelled with that
+ * note in every frame) and as loud as the other pitches starting there. No note of that pitch
+ * may start near the attack or sound through it. The note lasts until the next attack of a
+ * different pitch near it in the same register (a line moving on), until its own partials fall
+ * 10 dB under their level at the attack, or a second at most.
+ */
+function addAttackNotes(
+  notes: TrackedNote[],
+  attacks: Attack[],
+  cfg: TrackingConfig,
+  frames: number,
+  p95Odf: number,
+  env: ((t: number, f0: number) => number) | null,
+): TrackedNote[] {
+  const hop = cfg.hopSec;
+  const minShare = cfg.attackNoteShare ?? 0.7;
+  const relDb = cfg.attackNoteDb ?? 6;
+  let takeMax = 0;
+  for (const n of notes) for (const l of n.level) if (l > takeMax) takeMax = l;
+  const takeMaxDb = 20 * Math.log10(takeMax + 1e-12);
+  const lead = cfg.attackFrameLeadSec ?? 0.02;
+  const added: TrackedNote[] = [];
+  const midiOf = (f: number) => 69 + 12 * Math.log2(f / 440);
+  const noteMidi = notes.map((n) => midiOf(median(n.f0Hz)));
+  for (let ai = 0; ai < attacks.length; ai++) {
+    const a = attacks[ai];
+    if (a.odf < (cfg.attackNoteOdf ?? 0.5) * p95Odf) continue;
+    let loud = 0;
+    for (const l of a.level) loud = Math.max(loud, l);
+    for (let i = 0; i < a.f0Hz.length; i++) {
+      if (a.newShare[i] < minShare || a.level[i] < loud * Math.pow(10, -relDb / 20)) continue;
+      if (a.f0Share[i] < (cfg.attackNoteF0Share ?? 0.75) || a.parts[i] < (cfg.attackNoteParts ?? 3)) continue;
+      const lvDb = 20 * Math.log10(a.level[i] + 1e-12);
+      if (lvDb < takeMaxDb - (cfg.takeRangeDb ?? 30)) continue;
+      const m = midiOf(a.f0Hz[i]);
+      const onsetSec = Math.max(0, a.frame * hop - lead);
+      // as loud as what sounds there: new energy far under the notes held through the onset
+      // is their vibrato or beating
+      let sounding = -200;
+      for (let j = 0; j < notes.length; j++) {
+        const n = notes[j];
+        if (n.onsetSec > onsetSec + 0.05 || n.offsetSec < onsetSec) continue;
+        sounding = Math.max(sounding, peakDbOf(n.shared));
+      }
+      if (lvDb < sounding - (cfg.attackNoteRangeDb ?? 6)) continue;
+      // a harmonic of a note whose attack is still developing (a brass or bowed note's upper
+      // partials swell after its start), or a sub-harmonic of a sounding note, is that note's
+      let related = false;
+      for (let j = 0; j < notes.length && !related; j++) {
+        const n = notes[j];
+        if (n.onsetSec > onsetSec + 0.05 || n.offsetSec < onsetSec) continue;
+        const d = m - noteMidi[j];
+        const up = d > 0.5 && HARMONIC_SEMIS.some((x) => Math.abs(d - x) < 0.5);
+        const down = d < -0.5 && [12, 19.02, 24].some((x) => Math.abs(-d - x) < 0.5);
+        if (!up && !down) continue;
+        // a harmonic of a note that has just started is its attack's partials swelling
+        if (up && onsetSec - n.onsetSec < (cfg.attackNoteYoungSec ?? 0.25)) {
+          related = true;
+          break;
+        }
+        // an octave or twelfth above a louder sounding note: its swell or vibrato, unless it is as loud
+        if ((Math.abs(d - 12) < 0.5 || Math.abs(d - 19.02) < 0.5) && lvDb < peakDbOf(n.shared) - (cfg.attackNoteOctaveDb ?? 0)) {
+          related = true;
+          break;
+        }
+        // …when the sounding note's partials that it does not share rose as well
+        const fX = median(n.f0Hz);
+        const fC = a.f0Hz[i];
+        let host = 0;
+        let own = 0;
+        for (let k = 1; k <= 10; k++) {
+          const fk = k * fX;
+          const r = fk / fC;
+          if (Math.abs(r - Math.round(r)) * fC > 0.03 * fk || Math.round(r) < 1) {
+            const x = riseNear(a, fk);
+            host += x * x;
+          }
+          const fc = k * fC;
+          const q = fc / fX;
+          if (Math.abs(q - Math.round(q)) * fX > 0.03 * fc) {
+            const x = riseNear(a, fc);
+            own += x * x;
+          }
+        }
+        const cand = a.level[i] * a.level[i];
+        if (host + own > 0 && host >= (cfg.attackHostShare ?? 0.25) * cand && own < host) related = true;
+      }
+      if (related) continue;
+      let clash = false;
+      for (let j = 0; j < notes.length && !clash; j++) {
+        if (Math.abs(noteMidi[j] - m) > 0.5) continue;
+        const n = notes[j];
+        if (Math.abs(n.onsetSec - onsetSec) < 0.1 || (n.onsetSec < onsetSec && n.offsetSec > onsetSec)) clash = true;
+      }
+      for (const n of added) if (Math.abs(midiOf(n.f0Hz[0]) - m) <= 0.5 && n.offsetSec > onsetSec - 0.05) clash = true;
+      if (clash) continue;
+      // the end: the next attack of another pitch within 5 semitones, or the partials' fall
+      let end = Math.min(frames - 1, a.frame + Math.round(1 / hop));
+      for (let k = ai + 1; k < attacks.length && attacks[k].frame < end; k++) {
+        const b = attacks[k];
+        let moved = false;
+        for (let q = 0; q < b.f0Hz.length; q++) {
+          const d = Math.abs(midiOf(b.f0Hz[q]) - m);
+          if (d > 0.5 && d <= 5.5 && b.newShare[q] >= minShare && b.level[q] >= a.level[i] * 0.5) moved = true;
+        }
+        if (moved) {
+          end = b.frame;
+          break;
+        }
+      }
+      if (env) {
+        let ref = -200;
+        for (let t = a.frame; t <= Math.min(end, a.frame + 5); t++) ref = Math.max(ref, env(t, a.f0Hz[i]));
+        for (let t = a.frame + 6; t < end; t++) {
+          if (env(t, a.f0Hz[i]) < ref - 10) {
+            end = t;
+            break;
+          }
+        }
+      }
+      const offsetSec = Math.max(onsetSec + cfg.shortestNoteSec, end * hop - lead);
+      added.push({
+        hasOnset: true,
+        onsetSec,
+        offsetSec,
+        frames: Int32Array.of(a.frame),
+        f0Hz: Float32Array.of(a.f0Hz[i]),
+        level: Float32Array.of(a.level[i]),
+        shared: Float32Array.of(a.level[i]),
+      });
+    }
+  }
+  return notes.concat(added).sort((x, y) => x.onsetSec - y.onsetSec || x.f0Hz[0] - y.f0Hz[0]);
 }
 
 /**
@@ -318,6 +478,12 @@ function mergeFragments(notes: TrackedNote[], cents: number): TrackedNote[] {
     }
   }
   return out.filter((n) => n.hasOnset || n.offsetSec - n.onsetSec >= 0.3).sort((a, b) => a.onsetSec - b.onsetSec);
+}
+
+function peakDbOf(xs: Float32Array): number {
+  let p = 0;
+  for (const l of xs) if (l > p) p = l;
+  return 20 * Math.log10(p + 1e-12);
 }
 
 function concatF(a: Float32Array, b: Float32Array): Float32Array {

@@ -5,6 +5,7 @@ import { SpectrumPlan } from "./stft";
 import { findPeaks, PeakScratch, PeakStore, type PeakParams } from "./peaks";
 import { MultiPitchEstimator } from "./multipitch";
 import { SpectralFlux, pickOnsets } from "./onsets";
+import { AttackAnalyser } from "./attacks";
 import { trackNotes, median, type FrameDetections } from "./notes";
 import { steadyPitchHz, estimateReferenceHz, pitchAndCents, attackSkipSec } from "./tuning";
 import { midiToHz } from "../music/pitch";
@@ -136,6 +137,19 @@ export async function transcribe(
   const high = regs[regs.length - 1];
   const flux = new SpectralFlux(Math.floor(50 / high.spec.binHz), Math.ceil(6000 / high.spec.binHz));
   const store = new PeakStore(frames, PEAKS_PER_REGISTER, high.loHz, high.hiHz);
+  const attacks = new AttackAnalyser(
+    frames,
+    maxPeaks,
+    hopSec,
+    regs.map((r) => ({ hiHz: r.hiHz, frameSec: r.frameSec })),
+    {
+      lowMidi: settings.pitchRange.lowMidi,
+      highMidi: settings.pitchRange.highMidi,
+      voiceLimit: V,
+      sensitivityDb: settings.sensitivityDb,
+      maxFreqHz: 7000,
+    },
+  );
   const progressEvery = Math.max(1, Math.floor(frames / 20));
   for (let t = 0; t < frames; t++) {
     let n = 0;
@@ -161,14 +175,17 @@ export async function transcribe(
       }
     }
     det.count[t] = est.estimate(pf, pa, n, det.f0Hz, det.level, salience, t * V, det.sharedLevel);
+    attacks.push(t, pf, pa, n, odf[t]);
     if (onProgress && t % progressEvery === 0) onProgress(0.1 + (0.8 * t) / frames);
   }
+  attacks.finish(frames - 1);
   const onsetFrames = pickOnsets(odf);
   const frameLengthSecFor = (f0: number) => (f0 < regs[0].hiHz ? regs[0].frameSec : f0 < regs[1].hiHz ? regs[1].frameSec : regs[2].frameSec);
   const tracked = trackNotes(det, odf, onsetFrames, {
     hopSec,
     shortestNoteSec: settings.shortestNoteMs / 1000,
     frameLengthSecFor,
+    attacks: attacks.attacks,
   }, store);
   onProgress?.(0.95);
   const notes: Note[] = [];

@@ -66,6 +66,16 @@ export interface TrackingConfig {
   releaseDropDb?: number;
   /** Per-pitch attacks (attacks.ts): the pitches whose energy is new at each onset. */
   attacks?: Attack[];
+  /**
+   * A note whose onset lies more than attackCheckSec before its first detection, with no
+   * attack of its pitch there, starts at the first attack of its pitch after it (new share
+   * ≥ attackShare, at most attackRangeDb under the note).
+   */
+  attackCheckSec?: number;
+  attackShare?: number;
+  attackRangeDb?: number;
+  /** The onset stands where the note's own partials rise at an attack to at most this many dB under the note. */
+  attackSupportDb?: number;
   /** Lead (s) of a note's start before its attack frame. */
   attackFrameLeadSec?: number;
   /** Notes from attacks alone (see addAttackNotes); least new share, range under the loudest new pitch (dB), least detection-function peak (× its 95th percentile). */
@@ -84,6 +94,49 @@ export interface TrackingConfig {
   attackNoteOctaveDb?: number;
   /** …and no harmonic or sub-harmonic of a sounding note whose unshared partials rose by at least this share of its energy. */
   attackHostShare?: number;
+}
+
+/** Attacks by pitch: per semitone, frames, fractional MIDI and levels (dB), in frame order. */
+class AttackIndex {
+  private readonly bySemi = new Map<number, { t: number[]; m: number[]; db: number[]; share: number[] }>();
+  constructor(attacks: Attack[], minOdf: number) {
+    for (const a of attacks) {
+      if (a.odf < minOdf) continue;
+      for (let i = 0; i < a.f0Hz.length; i++) {
+        const m = 69 + 12 * Math.log2(a.f0Hz[i] / 440);
+        const k = Math.round(m);
+        let e = this.bySemi.get(k);
+        if (!e) this.bySemi.set(k, (e = { t: [], m: [], db: [], share: [] }));
+        e.t.push(a.frame);
+        e.m.push(m);
+        e.db.push(20 * Math.log10(a.level[i] + 1e-12));
+        e.share.push(a.newShare[i]);
+      }
+    }
+  }
+  /** Attacks within ±50 cents of fractional MIDI m in frames [from, to], level ≥ minDb, new share ≥ minShare: in frame order. */
+  find(m: number, from: number, to: number, minDb: number, minShare = 0): Array<{ t: number; db: number; share: number }> {
+    const out: Array<{ t: number; db: number; share: number }> = [];
+    for (let k = Math.round(m) - 1; k <= Math.round(m) + 1; k++) {
+      const e = this.bySemi.get(k);
+      if (!e) continue;
+      for (let i = 0; i < e.t.length; i++) {
+        if (e.t[i] < from || e.t[i] > to || Math.abs(e.m[i] - m) > 0.5 || e.db[i] < minDb || e.share[i] < minShare) continue;
+        out.push({ t: e.t[i], db: e.db[i], share: e.share[i] });
+      }
+    }
+    return out.sort((a, b) => a.t - b.t);
+  }
+  /** Level (dB) of the strongest attack within ±50 cents of m at frame t (−200 if none). */
+  levelAt(t: number, m: number): number {
+    let best = -200;
+    for (let k = Math.round(m) - 1; k <= Math.round(m) + 1; k++) {
+      const e = this.bySemi.get(k);
+      if (!e) continue;
+      for (let i = 0; i < e.t.length; i++) if (e.t[i] === t && Math.abs(e.m[i] - m) <= 0.5) best = Math.max(best, e.db[i]);
+    }
+    return best;
+  }
 }
 
 /** One tracked note: frame span and per-frame fundamental and level. */
@@ -168,6 +221,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
   const sortedOdf = Float32Array.from(odf).sort();
   const p95Odf = sortedOdf[Math.floor(0.95 * (sortedOdf.length - 1))] || 0;
   const splitOdf = (cfg.splitOdfFraction ?? 0.3) * p95Odf;
+  const attackIx = cfg.attacks ? new AttackIndex(cfg.attacks, 0) : null;
   for (const tr of done) {
     let peak = 0;
     for (const l of tr.l) if (l > peak) peak = l;
@@ -270,6 +324,32 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         // joining below does not glue it back onto the previous note)
         if (si > 0) {
           for (const o of onsetFrames) if (Math.abs(o - t0) <= 3 && odf[o] >= clearOdf) hasOnset = true;
+        }
+      }
+      if (attackIx && onsetSec < t0 * hop - (cfg.attackCheckSec ?? 0.1)) {
+        // placed well before the first detection (walking back through partials that other
+        // voices may share): unless an attack of the note's pitch supports that start, the
+        // first attack of its pitch after it is the note's own
+        let segPeakDb = -200;
+        for (let j = seg[0]; j < seg[1]; j++) segPeakDb = Math.max(segPeakDb, 20 * Math.log10(tr.l[j] + 1e-12));
+        const mMed = 69 + 12 * Math.log2(fMed / 440);
+        const from = Math.round(onsetSec / hop);
+        const minDb = segPeakDb - (cfg.attackRangeDb ?? 20);
+        const share = cfg.attackShare ?? 0.3;
+        const later = attackIx.find(mMed, from + 5, t0 + look, minDb, share);
+        let supported = attackIx.find(mMed, from - 5, from + 5, minDb, share).length > 0;
+        // …or the note's own partials rise at an attack there (the pitch search on the attack
+        // spectrum may have given that energy to another voice starting with it)
+        for (const a of cfg.attacks!) {
+          if (supported || a.frame > from + 5) break;
+          if (a.frame < from - 5) continue;
+          let e = 0;
+          for (let h = 1; h <= 10; h++) e += riseNear(a, h * fMed) ** 2;
+          if (10 * Math.log10(e + 1e-24) >= segPeakDb - (cfg.attackSupportDb ?? 15)) supported = true;
+        }
+        if (later.length && !supported) {
+          onsetSec = Math.max(0, later[0].t * hop - (cfg.attackFrameLeadSec ?? 0.02));
+          hasOnset = true;
         }
       }
       let offsetSec = t1 * hop - (cfg.offsetFrameFraction ?? 0.5) * frameSec + hop;

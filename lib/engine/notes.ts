@@ -444,8 +444,9 @@ function addAttackNotes(
         const up = d > 0.5 && HARMONIC_SEMIS.some((x) => Math.abs(d - x) < 0.5);
         const down = d < -0.5 && [12, 19.02, 24].some((x) => Math.abs(-d - x) < 0.5);
         if (!up && !down) continue;
-        // a harmonic of a note that has just started is its attack's partials swelling
-        if (up && onsetSec - n.onsetSec < (cfg.attackNoteYoungSec ?? 0.25)) {
+        // a harmonic of a note that has just started is its attack's partials swelling (one
+        // that starts with it is told apart by the pitch search on the attack spectrum)
+        if (up && onsetSec - n.onsetSec < (cfg.attackNoteYoungSec ?? 0.25) && onsetSec - n.onsetSec > 0.05) {
           related = true;
           break;
         }

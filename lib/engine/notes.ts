@@ -76,6 +76,8 @@ export interface TrackingConfig {
   attackRangeDb?: number;
   /** The onset stands where the note's own partials rise at an attack to at most this many dB under the note. */
   attackSupportDb?: number;
+  /** Join a fragment to the note of its pitch just before unless an attack shows it played again. */
+  attackJoin?: boolean;
   /** Lead (s) of a note's start before its attack frame. */
   attackFrameLeadSec?: number;
   /** Notes from attacks alone (see addAttackNotes); least new share, range under the loudest new pitch (dB), least detection-function peak (× its 95th percentile). */
@@ -382,7 +384,26 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     }
   }
   out.sort((a, b) => a.onsetSec - b.onsetSec || a.f0Hz[0] - b.f0Hz[0]);
-  const kept = dropWeak(pruneShadows(mergeFragments(out, cont), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
+  // a fragment close after a note of its pitch is played again only where an attack shows it:
+  // its pitch among the attack's new pitches, or its own partials rising there
+  const attackOf = attackIx && (cfg.attackJoin ?? true)
+    ? (n: TrackedNote) => {
+        const f = median(n.f0Hz);
+        const m = 69 + 12 * Math.log2(f / 440);
+        const at = Math.round((n.onsetSec + (cfg.attackFrameLeadSec ?? 0.02)) / hop);
+        const peak = peakDbOf(n.level);
+        if (attackIx.find(m, at - 6, at + 6, peak - (cfg.attackRangeDb ?? 20), cfg.attackShare ?? 0.3).length) return true;
+        for (const a of cfg.attacks!) {
+          if (a.frame > at + 6) break;
+          if (a.frame < at - 6) continue;
+          let e = 0;
+          for (let h = 1; h <= 10; h++) e += riseNear(a, h * f) ** 2;
+          if (10 * Math.log10(e + 1e-24) >= peak - (cfg.attackSupportDb ?? 15)) return true;
+        }
+        return false;
+      }
+    : undefined;
+  const kept = dropWeak(pruneShadows(mergeFragments(out, cont, attackOf), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
   if (!cfg.attacks || (cfg.attackNotes ?? true) === false) return kept;
   return addAttackNotes(kept, cfg.attacks, cfg, det.frames, p95Odf, store ? (t, f) => store.harmonicLevelDb(t, f) : null);
 }
@@ -530,7 +551,7 @@ function addAttackNotes(
  * before the previous one ended (+30 ms), or without an attack of its own within 150 ms of it,
  * continues that note. Attack-less fragments standing alone and shorter than 300 ms are dropped.
  */
-function mergeFragments(notes: TrackedNote[], cents: number): TrackedNote[] {
+function mergeFragments(notes: TrackedNote[], cents: number, attackOf?: (n: TrackedNote) => boolean): TrackedNote[] {
   const out: TrackedNote[] = [];
   const outF: number[] = [];
   for (const n of notes) {
@@ -540,7 +561,7 @@ function mergeFragments(notes: TrackedNote[], cents: number): TrackedNote[] {
       const p = out[i];
       if (n.onsetSec - p.offsetSec > 0.15) continue;
       if (Math.abs(1200 * Math.log2(f / outF[i])) > cents) continue;
-      if (n.onsetSec < p.offsetSec - 0.03 || !n.hasOnset) {
+      if (n.onsetSec < p.offsetSec - 0.03 || !n.hasOnset || (attackOf && !attackOf(n))) {
         out[i] = {
           hasOnset: p.hasOnset,
           onsetSec: p.onsetSec,

@@ -76,6 +76,8 @@ export interface TrackingConfig {
   attackRangeDb?: number;
   /** The onset stands where the note's own partials rise at an attack to at most this many dB under the note. */
   attackSupportDb?: number;
+  /** A fragment this long (s) after a note of its pitch ended, without an attack, continues it (a held note lost for a while behind other voices). */
+  joinGapSec?: number;
   /** Join a fragment to the note of its pitch just before unless an attack shows it played again. */
   attackJoin?: boolean;
   /** Lead (s) of a note's start before its attack frame. */
@@ -403,7 +405,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         return false;
       }
     : undefined;
-  const kept = dropWeak(pruneShadows(mergeFragments(out, cont, attackOf), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
+  const kept = dropWeak(pruneShadows(mergeFragments(out, cont, attackOf, cfg.joinGapSec ?? 1.2), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
   if (!cfg.attacks || (cfg.attackNotes ?? true) === false) return kept;
   return addAttackNotes(kept, cfg.attacks, cfg, det.frames, p95Odf, store ? (t, f) => store.harmonicLevelDb(t, f) : null);
 }
@@ -551,17 +553,20 @@ function addAttackNotes(
  * before the previous one ended (+30 ms), or without an attack of its own within 150 ms of it,
  * continues that note. Attack-less fragments standing alone and shorter than 300 ms are dropped.
  */
-function mergeFragments(notes: TrackedNote[], cents: number, attackOf?: (n: TrackedNote) => boolean): TrackedNote[] {
+function mergeFragments(notes: TrackedNote[], cents: number, attackOf?: (n: TrackedNote) => boolean, longGapSec = 0.15): TrackedNote[] {
   const out: TrackedNote[] = [];
   const outF: number[] = [];
   for (const n of notes) {
     const f = median(n.f0Hz);
     let joined = false;
+    let attacked: boolean | undefined;
     for (let i = out.length - 1; i >= 0 && !joined; i--) {
       const p = out[i];
-      if (n.onsetSec - p.offsetSec > 0.15) continue;
+      const gap = n.onsetSec - p.offsetSec;
+      if (gap > (attackOf ? longGapSec : 0.15)) continue;
+      if (gap > 0.15 && (attacked ??= attackOf!(n))) continue;
       if (Math.abs(1200 * Math.log2(f / outF[i])) > cents) continue;
-      if (n.onsetSec < p.offsetSec - 0.03 || !n.hasOnset || (attackOf && !attackOf(n))) {
+      if (n.onsetSec < p.offsetSec - 0.03 || !n.hasOnset || gap > 0.15 || (attackOf && !(attacked ??= attackOf(n)))) {
         out[i] = {
           hasOnset: p.hasOnset,
           onsetSec: p.onsetSec,

@@ -330,7 +330,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           for (const o of onsetFrames) if (Math.abs(o - t0) <= 3 && odf[o] >= clearOdf) hasOnset = true;
         }
       }
-      if (attackIx && onsetSec < t0 * hop - (cfg.attackCheckSec ?? 0.1)) {
+      if (attackIx && onsetSec < t0 * hop - (cfg.attackCheckSec ?? 0.06)) {
         // placed well before the first detection (walking back through partials that other
         // voices may share): unless an attack of the note's pitch supports that start, the
         // first attack of its pitch after it is the note's own

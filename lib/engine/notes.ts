@@ -124,22 +124,12 @@ class AttackIndex {
     for (let k = Math.round(m) - 1; k <= Math.round(m) + 1; k++) {
       const e = this.bySemi.get(k);
       if (!e) continue;
-      for (let i = 0; i < e.t.length; i++) {
-        if (e.t[i] < from || e.t[i] > to || Math.abs(e.m[i] - m) > 0.5 || e.db[i] < minDb || e.share[i] < minShare) continue;
+      for (let i = firstAtOrAfter(e.t, from); i < e.t.length && e.t[i] <= to; i++) {
+        if (Math.abs(e.m[i] - m) > 0.5 || e.db[i] < minDb || e.share[i] < minShare) continue;
         out.push({ t: e.t[i], db: e.db[i], share: e.share[i] });
       }
     }
     return out.sort((a, b) => a.t - b.t);
-  }
-  /** Level (dB) of the strongest attack within ±50 cents of m at frame t (−200 if none). */
-  levelAt(t: number, m: number): number {
-    let best = -200;
-    for (let k = Math.round(m) - 1; k <= Math.round(m) + 1; k++) {
-      const e = this.bySemi.get(k);
-      if (!e) continue;
-      for (let i = 0; i < e.t.length; i++) if (e.t[i] === t && Math.abs(e.m[i] - m) <= 0.5) best = Math.max(best, e.db[i]);
-    }
-    return best;
   }
 }
 
@@ -344,9 +334,10 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         let supported = attackIx.find(mMed, from - 5, from + 5, minDb, share).length > 0;
         // …or the note's own partials rise at an attack there (the pitch search on the attack
         // spectrum may have given that energy to another voice starting with it)
-        for (const a of cfg.attacks!) {
-          if (supported || a.frame > from + 5) break;
-          if (a.frame < from - 5) continue;
+        const atts = cfg.attacks!;
+        for (let k = firstAttackAtOrAfter(atts, from - 5); k < atts.length && !supported; k++) {
+          const a = atts[k];
+          if (a.frame > from + 5) break;
           let e = 0;
           for (let h = 1; h <= 10; h++) e += riseNear(a, h * fMed) ** 2;
           if (10 * Math.log10(e + 1e-24) >= segPeakDb - (cfg.attackSupportDb ?? 15)) supported = true;
@@ -395,9 +386,10 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         const at = Math.round((n.onsetSec + (cfg.attackFrameLeadSec ?? 0.02)) / hop);
         const peak = peakDbOf(n.level);
         if (attackIx.find(m, at - 6, at + 6, peak - (cfg.attackRangeDb ?? 20), cfg.attackShare ?? 0.3).length) return true;
-        for (const a of cfg.attacks!) {
+        const atts = cfg.attacks!;
+        for (let k = firstAttackAtOrAfter(atts, at - 6); k < atts.length; k++) {
+          const a = atts[k];
           if (a.frame > at + 6) break;
-          if (a.frame < at - 6) continue;
           let e = 0;
           for (let h = 1; h <= 10; h++) e += riseNear(a, h * f) ** 2;
           if (10 * Math.log10(e + 1e-24) >= peak - (cfg.attackSupportDb ?? 15)) return true;
@@ -436,6 +428,12 @@ function addAttackNotes(
   const added: TrackedNote[] = [];
   const midiOf = (f: number) => 69 + 12 * Math.log2(f / 440);
   const noteMidi = notes.map((n) => midiOf(median(n.f0Hz)));
+  const noteHz = noteMidi.map((m) => 440 * Math.pow(2, (m - 69) / 12));
+  const noteShared = notes.map((n) => peakDbOf(n.shared));
+  // notes are in onset order: the ones sounding at t start within the longest note before it
+  const onsets = notes.map((n) => n.onsetSec);
+  let longest = 0;
+  for (const n of notes) longest = Math.max(longest, n.offsetSec - n.onsetSec);
   for (let ai = 0; ai < attacks.length; ai++) {
     const a = attacks[ai];
     if (a.odf < (cfg.attackNoteOdf ?? 0.5) * p95Odf) continue;
@@ -450,17 +448,18 @@ function addAttackNotes(
       const onsetSec = Math.max(0, a.frame * hop - lead);
       // as loud as what sounds there: new energy far under the notes held through the onset
       // is their vibrato or beating
+      const j0 = firstAtOrAfter(onsets, onsetSec - longest - 0.1);
       let sounding = -200;
-      for (let j = 0; j < notes.length; j++) {
+      for (let j = j0; j < notes.length && onsets[j] <= onsetSec + 0.1; j++) {
         const n = notes[j];
         if (n.onsetSec > onsetSec + 0.05 || n.offsetSec < onsetSec) continue;
-        sounding = Math.max(sounding, peakDbOf(n.shared));
+        sounding = Math.max(sounding, noteShared[j]);
       }
       if (lvDb < sounding - (cfg.attackNoteRangeDb ?? 6)) continue;
       // a harmonic of a note whose attack is still developing (a brass or bowed note's upper
       // partials swell after its start), or a sub-harmonic of a sounding note, is that note's
       let related = false;
-      for (let j = 0; j < notes.length && !related; j++) {
+      for (let j = j0; j < notes.length && !related && onsets[j] <= onsetSec + 0.1; j++) {
         const n = notes[j];
         if (n.onsetSec > onsetSec + 0.05 || n.offsetSec < onsetSec) continue;
         const d = m - noteMidi[j];
@@ -474,12 +473,12 @@ function addAttackNotes(
           break;
         }
         // an octave or twelfth above a louder sounding note: its swell or vibrato, unless it is as loud
-        if ((Math.abs(d - 12) < 0.5 || Math.abs(d - 19.02) < 0.5) && lvDb < peakDbOf(n.shared) - (cfg.attackNoteOctaveDb ?? 0)) {
+        if ((Math.abs(d - 12) < 0.5 || Math.abs(d - 19.02) < 0.5) && lvDb < noteShared[j] - (cfg.attackNoteOctaveDb ?? 0)) {
           related = true;
           break;
         }
         // …when the sounding note's partials that it does not share rose as well
-        const fX = median(n.f0Hz);
+        const fX = noteHz[j];
         const fC = a.f0Hz[i];
         let host = 0;
         let own = 0;
@@ -502,12 +501,16 @@ function addAttackNotes(
       }
       if (related) continue;
       let clash = false;
-      for (let j = 0; j < notes.length && !clash; j++) {
+      for (let j = j0; j < notes.length && !clash && onsets[j] <= onsetSec + 0.1; j++) {
         if (Math.abs(noteMidi[j] - m) > 0.5) continue;
         const n = notes[j];
         if (Math.abs(n.onsetSec - onsetSec) < 0.1 || (n.onsetSec < onsetSec && n.offsetSec > onsetSec)) clash = true;
       }
-      for (const n of added) if (Math.abs(midiOf(n.f0Hz[0]) - m) <= 0.5 && n.offsetSec > onsetSec - 0.05) clash = true;
+      // (added notes are in onset order and last a second at most)
+      for (let k = added.length - 1; k >= 0 && added[k].onsetSec > onsetSec - 1.5; k--) {
+        const n = added[k];
+        if (Math.abs(midiOf(n.f0Hz[0]) - m) <= 0.5 && n.offsetSec > onsetSec - 0.05) clash = true;
+      }
       if (clash) continue;
       // the end: the next attack of another pitch within 5 semitones, or the partials' fall
       let end = Math.min(frames - 1, a.frame + Math.round(1 / hop));
@@ -585,6 +588,30 @@ function mergeFragments(notes: TrackedNote[], cents: number, attackOf?: (n: Trac
     }
   }
   return out.filter((n) => n.hasOnset || n.offsetSec - n.onsetSec >= 0.3).sort((a, b) => a.onsetSec - b.onsetSec);
+}
+
+/** Index of the first element ≥ x of an ascending array (its length if none). */
+function firstAtOrAfter(xs: ArrayLike<number>, x: number): number {
+  let l = 0;
+  let r = xs.length;
+  while (l < r) {
+    const m = (l + r) >> 1;
+    if (xs[m] < x) l = m + 1;
+    else r = m;
+  }
+  return l;
+}
+
+/** Index of the first attack at or after frame t (attacks are in frame order). */
+function firstAttackAtOrAfter(attacks: Attack[], t: number): number {
+  let l = 0;
+  let r = attacks.length;
+  while (l < r) {
+    const m = (l + r) >> 1;
+    if (attacks[m].frame < t) l = m + 1;
+    else r = m;
+  }
+  return l;
 }
 
 function peakDbOf(xs: Float32Array): number {

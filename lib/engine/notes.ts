@@ -76,6 +76,9 @@ export interface TrackingConfig {
   attackRangeDb?: number;
   /** The onset stands where the note's own partials rise at an attack to at most this many dB under the note. */
   attackSupportDb?: number;
+  /** A short attack-less note is kept where its pitch is found at an attack within ±40 ms with this share new, at most attackShownDb under it (share > 1: not). */
+  attackShownShare?: number;
+  attackShownDb?: number;
   /** A fragment this long (s) after a note of its pitch ended, without an attack, continues it (a held note lost for a while behind other voices). */
   joinGapSec?: number;
   /** Join a fragment to the note of its pitch just before unless an attack shows it played again. */
@@ -397,7 +400,18 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         return false;
       }
     : undefined;
-  const kept = dropWeak(pruneShadows(mergeFragments(out, cont, attackOf, cfg.joinGapSec ?? 1.2), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
+  // a short note without a steep rise of its own (a legato note) is kept where an attack shows
+  // its pitch start: found there with most of its energy new, not far under the note
+  const shown = new WeakSet<TrackedNote>();
+  if (attackIx && (cfg.attackShownShare ?? 0.6) <= 1) {
+    for (const n of out) {
+      if (n.hasOnset || n.offsetSec - n.onsetSec >= 0.3) continue;
+      const m = 69 + 12 * Math.log2(median(n.f0Hz) / 440);
+      const at = Math.round((n.onsetSec + (cfg.attackFrameLeadSec ?? 0.02)) / hop);
+      if (attackIx.find(m, at - 4, at + 4, peakDbOf(n.level) - (cfg.attackShownDb ?? 10), cfg.attackShownShare ?? 0.6).length) shown.add(n);
+    }
+  }
+  const kept = dropWeak(pruneShadows(mergeFragments(out, cont, attackOf, cfg.joinGapSec ?? 1.2, shown), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
   if (!cfg.attacks || (cfg.attackNotes ?? true) === false) return kept;
   return addAttackNotes(kept, cfg.attacks, cfg, det.frames, p95Odf, store ? (t, f) => store.harmonicLevelDb(t, f) : null);
 }
@@ -556,7 +570,7 @@ function addAttackNotes(
  * before the previous one ended (+30 ms), or without an attack of its own within 150 ms of it,
  * continues that note. Attack-less fragments standing alone and shorter than 300 ms are dropped.
  */
-function mergeFragments(notes: TrackedNote[], cents: number, attackOf?: (n: TrackedNote) => boolean, longGapSec = 0.15): TrackedNote[] {
+function mergeFragments(notes: TrackedNote[], cents: number, attackOf?: (n: TrackedNote) => boolean, longGapSec = 0.15, shown?: WeakSet<TrackedNote>): TrackedNote[] {
   const out: TrackedNote[] = [];
   const outF: number[] = [];
   for (const n of notes) {
@@ -587,7 +601,7 @@ function mergeFragments(notes: TrackedNote[], cents: number, attackOf?: (n: Trac
       outF.push(f);
     }
   }
-  return out.filter((n) => n.hasOnset || n.offsetSec - n.onsetSec >= 0.3).sort((a, b) => a.onsetSec - b.onsetSec);
+  return out.filter((n) => n.hasOnset || n.offsetSec - n.onsetSec >= 0.3 || shown?.has(n)).sort((a, b) => a.onsetSec - b.onsetSec);
 }
 
 /** Index of the first element ≥ x of an ascending array (its length if none). */

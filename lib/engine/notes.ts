@@ -79,6 +79,8 @@ export interface TrackingConfig {
   /** A short attack-less note is kept where its pitch is found at an attack within ±40 ms with this share new, at most attackShownDb under it (share > 1: not). */
   attackShownShare?: number;
   attackShownDb?: number;
+  /** A re-articulation split needs the attack spectrum to show the note's own pitch or its unshared partials rising. */
+  attackSplitCheck?: boolean;
   /** A fragment this long (s) after a note of its pitch ended, without an attack, continues it (a held note lost for a while behind other voices). */
   joinGapSec?: number;
   /** Join a fragment to the note of its pitch just before unless an attack shows it played again. */
@@ -232,7 +234,24 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
     if (store) for (let t = envFrom; t <= envTo; t++) envDb[t - envFrom] = store.harmonicLevelDb(t, fTrack);
     const env = (t: number) => (t >= envFrom && t <= envTo ? envDb[t - envFrom] : -200);
     const clearOdf = (cfg.clearOnsetOdf ?? 2) * p95Odf;
-    const segs = splitTrack(tr, onsetFrames, riseDb, store ? env : null, odf, splitOdf, clearOdf, cfg.clearRiseDb ?? 4);
+    // a re-articulation shows in the attack spectrum as the note's own pitch, or as new energy
+    // on its partials that no other pitch starting there shares (a melody note starting on a
+    // held note's partials raises them too)
+    const fT = fTrack;
+    const replayed = attackIx && (cfg.attackSplitCheck ?? true)
+      ? (o: number) => {
+          const m = 69 + 12 * Math.log2(fT / 440);
+          let peak = -200;
+          for (const l of tr.l) peak = Math.max(peak, 20 * Math.log10(l + 1e-12));
+          if (attackIx.find(m, o - 4, o + 4, peak - (cfg.attackRangeDb ?? 20), cfg.attackShare ?? 0.3).length) return true;
+          const atts = cfg.attacks!;
+          for (let k = firstAttackAtOrAfter(atts, o - 4); k < atts.length && atts[k].frame <= o + 4; k++) {
+            if (ownRiseDb(atts[k], fT) >= peak - (cfg.attackSupportDb ?? 15)) return true;
+          }
+          return false;
+        }
+      : null;
+    const segs = splitTrack(tr, onsetFrames, riseDb, store ? env : null, odf, splitOdf, clearOdf, cfg.clearRiseDb ?? 4, replayed);
     for (let si = 0; si < segs.length; si++) {
       const seg = segs[si];
       const t0 = tr.t[seg[0]];
@@ -414,6 +433,27 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
   const kept = dropWeak(pruneShadows(mergeFragments(out, cont, attackOf, cfg.joinGapSec ?? 1.2, shown), cfg.shadowDb ?? 6), cfg.concurrentRangeDb ?? 9, cfg.takeRangeDb ?? 30);
   if (!cfg.attacks || (cfg.attackNotes ?? true) === false) return kept;
   return addAttackNotes(kept, cfg.attacks, cfg, det.frames, p95Odf, store ? (t, f) => store.harmonicLevelDb(t, f) : null);
+}
+
+/**
+ * Level (dB) of the new energy at an attack on the partials of f0Hz (h ≤ 10) that are no
+ * partial of another pitch found starting there (those rise with that pitch; overlapping
+ * partials, Klapuri 2003).
+ */
+function ownRiseDb(a: Attack, f0Hz: number): number {
+  let e = 0;
+  for (let h = 1; h <= 10; h++) {
+    const f = h * f0Hz;
+    let shared = false;
+    for (let j = 0; j < a.f0Hz.length && !shared; j++) {
+      const g = a.f0Hz[j];
+      if (Math.abs(Math.log2(g / f0Hz)) < 0.5 / 12) continue;
+      const k = Math.round(f / g);
+      if (k >= 1 && Math.abs(f - k * g) < 0.03 * f) shared = true;
+    }
+    if (!shared) e += riseNear(a, f) ** 2;
+  }
+  return 10 * Math.log10(e + 1e-24);
 }
 
 /**
@@ -727,6 +767,7 @@ function splitTrack(
   minOdf: number,
   clearOdf = Infinity,
   clearRiseDb = riseDb,
+  replayed: ((o: number) => boolean) | null = null,
 ): Array<[number, number]> {
   const segs: Array<[number, number]> = [];
   const n = tr.t.length;
@@ -752,7 +793,7 @@ function splitTrack(
       for (let j = Math.max(start, idx - 5); j < idx; j++) before = Math.min(before, db[j]);
       for (let j = idx; j < Math.min(n, idx + 4); j++) after = Math.max(after, db[j]);
     }
-    if (after - before >= (odf[o] >= clearOdf ? clearRiseDb : riseDb)) {
+    if (after - before >= (odf[o] >= clearOdf ? clearRiseDb : riseDb) && (!replayed || odf[o] >= clearOdf || replayed(o))) {
       segs.push([start, idx]);
       start = idx;
     }

@@ -81,6 +81,8 @@ export interface TrackingConfig {
   attackShownDb?: number;
   /** A re-articulation split needs the attack spectrum to show the note's own pitch or its unshared partials rising. */
   attackSplitCheck?: boolean;
+  /** …below a detection-function peak of this multiple of its 95th percentile (stronger onsets split without it). */
+  replayCheckOdf?: number;
   /** A fragment this long (s) after a note of its pitch ended, without an attack, continues it (a held note lost for a while behind other voices). */
   joinGapSec?: number;
   /** Join a fragment to the note of its pitch just before unless an attack shows it played again. */
@@ -251,7 +253,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           return false;
         }
       : null;
-    const segs = splitTrack(tr, onsetFrames, riseDb, store ? env : null, odf, splitOdf, clearOdf, cfg.clearRiseDb ?? 4, replayed);
+    const segs = splitTrack(tr, onsetFrames, riseDb, store ? env : null, odf, splitOdf, clearOdf, cfg.clearRiseDb ?? 4, replayed, (cfg.replayCheckOdf ?? 1) * p95Odf);
     for (let si = 0; si < segs.length; si++) {
       const seg = segs[si];
       const t0 = tr.t[seg[0]];
@@ -768,6 +770,7 @@ function splitTrack(
   clearOdf = Infinity,
   clearRiseDb = riseDb,
   replayed: ((o: number) => boolean) | null = null,
+  replayOdf = clearOdf,
 ): Array<[number, number]> {
   const segs: Array<[number, number]> = [];
   const n = tr.t.length;
@@ -793,7 +796,7 @@ function splitTrack(
       for (let j = Math.max(start, idx - 5); j < idx; j++) before = Math.min(before, db[j]);
       for (let j = idx; j < Math.min(n, idx + 4); j++) after = Math.max(after, db[j]);
     }
-    if (after - before >= (odf[o] >= clearOdf ? clearRiseDb : riseDb) && (!replayed || odf[o] >= clearOdf || replayed(o))) {
+    if (after - before >= (odf[o] >= clearOdf ? clearRiseDb : riseDb) && (!replayed || odf[o] >= replayOdf || replayed(o))) {
       segs.push([start, idx]);
       start = idx;
     }

@@ -87,6 +87,8 @@ export interface TrackingConfig {
   joinGapSec?: number;
   /** Join a fragment to the note of its pitch just before unless an attack shows it played again. */
   attackJoin?: boolean;
+  /** Lead (s) of a note's start before the attack it is moved to by the start check (attacks of held voices swell). */
+  attackStartLeadSec?: number;
   /** Lead (s) of a note's start before its attack frame. */
   attackFrameLeadSec?: number;
   /** Notes from attacks alone (see addAttackNotes); least new share, range under the loudest new pitch (dB), least detection-function peak (× its 95th percentile). */
@@ -367,7 +369,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           if (10 * Math.log10(e + 1e-24) >= segPeakDb - (cfg.attackSupportDb ?? 15)) supported = true;
         }
         if (later.length && !supported) {
-          onsetSec = Math.max(0, later[0].t * hop - (cfg.attackFrameLeadSec ?? 0.02));
+          onsetSec = Math.max(0, later[0].t * hop - (cfg.attackStartLeadSec ?? 0.04));
           hasOnset = true;
         }
       }

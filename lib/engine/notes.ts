@@ -83,6 +83,9 @@ export interface TrackingConfig {
   attackSplitCheck?: boolean;
   /** …below a detection-function peak of this multiple of its 95th percentile (stronger onsets split without it). */
   replayCheckOdf?: number;
+  /** A note (≥ sustainMinHz) whose detections end while its own partials hold within sustainDb of their level goes on. */
+  sustainMinHz?: number;
+  sustainDb?: number;
   /** A fragment this long (s) after a note of its pitch ended, without an attack, continues it (a held note lost for a while behind other voices). */
   joinGapSec?: number;
   /** Join a fragment to the note of its pitch just before unless an attack shows it played again. */
@@ -154,6 +157,8 @@ export interface TrackedNote {
   level: Float32Array;
   /** Levels with shared partials split between voices (for comparing concurrent notes). */
   shared: Float32Array;
+  /** Where the note's pitch is measured up to when its end lies past its detections (s). */
+  pitchUntilSec?: number;
 }
 
 interface Track {
@@ -389,12 +394,34 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
           }
         }
       }
+      let measureUntil: number | undefined;
+      if (store && attackIx && fMed >= (cfg.sustainMinHz ?? 250) && si === segs.length - 1) {
+        // detections lost while the note still sounds (masked by other voices): its own
+        // partials in the short frames hold within 6 dB of their level in the note, with no
+        // attack of its pitch, for as long as 3 s more
+        const lv: number[] = [];
+        for (let t = t0; t <= t1; t++) lv.push(env(t));
+        const ref = median(lv);
+        const mMed = 69 + 12 * Math.log2(fMed / 440);
+        const limit = Math.min(det.frames - 1, t1 + Math.round(3 / hop));
+        let t = t1 + 1;
+        while (t <= limit && store.harmonicLevelDb(t, fMed) >= ref - (cfg.sustainDb ?? 6)) t++;
+        if (t - t1 > 10) {
+          const again = attackIx.find(mMed, t1 + 1, t, -200, cfg.attackShare ?? 0.3);
+          const end = again.length ? Math.min(t, again[0].t) : t;
+          if (end * hop > offsetSec) {
+            measureUntil = offsetSec;
+            offsetSec = end * hop;
+          }
+        }
+      }
       if (offsetSec < onsetSec + cfg.shortestNoteSec) offsetSec = onsetSec + cfg.shortestNoteSec;
       if ((t1 - t0 + 1) * hop < cfg.shortestNoteSec) continue;
       out.push({
         hasOnset,
         onsetSec,
         offsetSec,
+        ...(measureUntil !== undefined ? { pitchUntilSec: measureUntil } : {}),
         frames: Int32Array.from(tr.t.slice(seg[0], seg[1])),
         f0Hz: Float32Array.from(tr.f.slice(seg[0], seg[1])),
         level: Float32Array.from(tr.l.slice(seg[0], seg[1])),

@@ -193,11 +193,13 @@ export async function transcribe(
   const weights: number[] = [];
   for (const tn of tracked) {
     const times = Array.from(tn.frames, (f) => f * hopSec);
-    const fTrack = steadyPitchHz(times, tn.f0Hz, tn.onsetSec, tn.offsetSec);
+    // the pitch is measured where the note was detected (its end may lie past that)
+    const until = tn.pitchUntilSec ?? tn.offsetSec;
+    const fTrack = steadyPitchHz(times, tn.f0Hz, tn.onsetSec, until);
     if (!(fTrack > 0)) continue;
     // measure on every frame of the note's span where this pitch was detected (a track may
     // have lost frames to a competing voice), not only on the track's own frames
-    const fHz = spanPitchHz(det, hopSec, tn.onsetSec, tn.offsetSec, fTrack) || fTrack;
+    const fHz = spanPitchHz(det, hopSec, tn.onsetSec, until, fTrack) || fTrack;
     const { pitch, cents } = pitchAndCents(fHz);
     if (pitch < settings.pitchRange.lowMidi - 1 || pitch > settings.pitchRange.highMidi + 1) continue;
     let peak = 0;

@@ -86,6 +86,8 @@ export interface TrackingConfig {
   /** A note (≥ sustainMinHz) whose detections end while its own partials hold within sustainDb of their level goes on. */
   sustainMinHz?: number;
   sustainDb?: number;
+  /** …within this many dB below 250 Hz (the short frames see only upper partials of a low note, shared with others). */
+  sustainLowDb?: number;
   /** A fragment this long (s) after a note of its pitch ended, without an attack, continues it (a held note lost for a while behind other voices). */
   joinGapSec?: number;
   /** Join a fragment to the note of its pitch just before unless an attack shows it played again. */
@@ -395,7 +397,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         }
       }
       let measureUntil: number | undefined;
-      if (store && attackIx && fMed >= (cfg.sustainMinHz ?? 250) && si === segs.length - 1) {
+      if (store && attackIx && fMed >= (cfg.sustainMinHz ?? 130) && si === segs.length - 1) {
         // detections lost while the note still sounds (masked by other voices): its own
         // partials in the short frames hold within 6 dB of their level in the note, with no
         // attack of its pitch, for as long as 3 s more
@@ -405,7 +407,8 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         const mMed = 69 + 12 * Math.log2(fMed / 440);
         const limit = Math.min(det.frames - 1, t1 + Math.round(3 / hop));
         let t = t1 + 1;
-        while (t <= limit && store.harmonicLevelDb(t, fMed) >= ref - (cfg.sustainDb ?? 6)) t++;
+        const dbHold = fMed >= 250 ? cfg.sustainDb ?? 6 : cfg.sustainLowDb ?? 2;
+        while (t <= limit && store.harmonicLevelDb(t, fMed) >= ref - dbHold) t++;
         if (t - t1 > 10) {
           const again = attackIx.find(mMed, t1 + 1, t, -200, cfg.attackShare ?? 0.3);
           const end = again.length ? Math.min(t, again[0].t) : t;

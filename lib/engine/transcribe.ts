@@ -224,6 +224,13 @@ export async function transcribe(
     centsList.push(cents);
     weights.push(tn.offsetSec - tn.onsetSec);
   }
+  const kept = limitVoices(notes, V, settings.shortestNoteMs / 1000);
+  for (let i = notes.length - 1; i >= 0; i--) {
+    if (kept.has(i)) continue;
+    notes.splice(i, 1);
+    centsList.splice(i, 1);
+    weights.splice(i, 1);
+  }
   assignVoices(notes);
   const referenceHz = settings.referenceHz === "estimate" ? round(estimateReferenceHz(centsList, weights), 2) : settings.referenceHz;
   onProgress?.(1);
@@ -245,6 +252,41 @@ function spanPitchHz(det: FrameDetections, hopSec: number, onsetSec: number, off
     }
   }
   return sel.length >= 3 ? median(sel) : 0;
+}
+
+/**
+ * The voice limit holds for the notes, not only for each frame's search: notes found by
+ * different evidence (frame detections, attack spectra, held partials) may overlap more than
+ * `limit` deep. In onset order, a note starting while `limit` notes sound is dropped when it
+ * is the softest of them; otherwise the softest sounding note ends where it starts (or is
+ * dropped when that leaves it shorter than the shortest note). Returns the indices kept;
+ * offsets of cut notes are changed in place.
+ */
+function limitVoices(notes: Note[], limit: number, shortestSec: number): Set<number> {
+  const order = notes.map((_, i) => i).sort((a, b) => notes[a].onsetSec - notes[b].onsetSec || a - b);
+  const kept = new Set<number>();
+  let sounding: number[] = [];
+  for (const i of order) {
+    const n = notes[i];
+    sounding = sounding.filter((j) => kept.has(j) && notes[j].offsetSec > n.onsetSec + 1e-6);
+    if (sounding.length >= limit) {
+      let softest = sounding[0];
+      for (const j of sounding) if (notes[j].velocity < notes[softest].velocity) softest = j;
+      if (n.velocity <= notes[softest].velocity) continue;
+      const cut = notes[softest];
+      if (n.onsetSec - cut.onsetSec >= shortestSec) {
+        cut.offsetSec = n.onsetSec;
+        if (cut.pitchCurve) {
+          const end = cut.pitchCurve.timeSec.findIndex((x) => x > cut.offsetSec);
+          if (end >= 0) cut.pitchCurve = { timeSec: cut.pitchCurve.timeSec.slice(0, end), cents: cut.pitchCurve.cents.slice(0, end) };
+        }
+      } else kept.delete(softest);
+      sounding = sounding.filter((j) => j !== softest);
+    }
+    kept.add(i);
+    sounding.push(i);
+  }
+  return kept;
 }
 
 /** Greedy voice assignment in onset order: the free voice whose last pitch is nearest. */

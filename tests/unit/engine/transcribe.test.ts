@@ -138,6 +138,17 @@ describe("settings", () => {
       expect(r.notes.some((n) => n.pitch === 55)).toBe(true);
     }
   }, 30_000);
+  it("the voice limit holds for the notes: the piano triads with voiceLimit 1 never sound two notes at once", async () => {
+    const audio = await decodeAudio(new Uint8Array(readFileSync(new URL("triads.wav", dir))));
+    for (const voiceLimit of [1, 2]) {
+      const r = await transcribe(audio.samples, audio.sampleRateHz, { voiceLimit });
+      expect(r.notes.length).toBeGreaterThan(0);
+      for (const n of r.notes) {
+        const sounding = r.notes.filter((m) => m.onsetSec <= n.onsetSec + 1e-9 && m.offsetSec > n.onsetSec + 1e-6);
+        expect(sounding.length).toBeLessThanOrEqual(voiceLimit);
+      }
+    }
+  }, 30_000);
   it("a fixed reference pitch is reported as given", async () => {
     const audio = await decodeAudio(new Uint8Array(readFileSync(new URL("short.wav", dir))));
     const r = await transcribe(audio.samples, audio.sampleRateHz, { referenceHz: 442 });

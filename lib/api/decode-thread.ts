@@ -1,4 +1,3 @@
-import "server-only";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
@@ -74,6 +73,11 @@ export function checkAudioOffThread(bytes: Uint8Array, maxDurationSec: number): 
     const request: DecodeCheckRequest = { id, bytes, maxDurationSec };
     worker.postMessage(request);
   });
+}
+
+/** Starts the thread ahead of the first upload (at server start), so no upload waits for it. */
+export function warmDecodeThread(): void {
+  decodeThread();
 }
 
 /** Stops the thread (tests and shutdown); the next check starts a new one. */

@@ -62,9 +62,12 @@ const lastUsedWrites = new Map<string, number>();
 // Revoking through this process clears it at once; elsewhere a change shows within KEY_CACHE_MS.
 const KEY_CACHE_MS = 5000;
 const keyCache = new Map<string, { actor: KeyActor | null; until: number }>();
+// lookups under way: when the cached entry runs out, a script's 200 waiting calls share one
+const lookingUp = new Map<string, Promise<KeyActor | null>>();
 
 export function forgetCachedKeys(): void {
   keyCache.clear();
+  lookingUp.clear();
 }
 
 /** Resolves a bearer key; null when unknown, revoked, or its creator has left the studio. */
@@ -73,10 +76,24 @@ export async function resolveApiKey(key: string): Promise<KeyActor | null> {
   const hash = sha256Hex(key);
   const cached = keyCache.get(hash);
   if (cached && cached.until > Date.now()) return cached.actor;
-  const actor = await lookUpApiKey(hash);
-  if (keyCache.size > 1000) keyCache.clear();
-  keyCache.set(hash, { actor, until: Date.now() + KEY_CACHE_MS });
-  return actor;
+  const under = lookingUp.get(hash);
+  if (under) return under;
+  const lookup = lookUpApiKey(hash).then(
+    (actor) => {
+      if (lookingUp.get(hash) === lookup) {
+        lookingUp.delete(hash);
+        if (keyCache.size > 1000) keyCache.clear();
+        keyCache.set(hash, { actor, until: Date.now() + KEY_CACHE_MS });
+      }
+      return actor;
+    },
+    (e: unknown) => {
+      if (lookingUp.get(hash) === lookup) lookingUp.delete(hash);
+      throw e;
+    },
+  );
+  lookingUp.set(hash, lookup);
+  return lookup;
 }
 
 async function lookUpApiKey(hash: string): Promise<KeyActor | null> {

@@ -18,8 +18,11 @@ const WRITE_SQL = /^\s*(insert|update|delete|replace|create|drop|alter|with|prag
  * straight to the pool (WAL lets them run beside a writer).
  *
  * SQLite's own busy handler waits synchronously too, which would freeze the event loop while
- * another process (the job runner) holds the write lock. So connections get a short busy
- * timeout and a busy write is retried here, asynchronously, with back-off (about 10 s in all).
+ * another process (the job runner) holds the write lock. So the writer's connection does not
+ * wait at all (busy timeout 0: every 25 ms it waited held up all the process's requests, seen
+ * as note reads' tail latency while jobs wrote), and a busy write is retried here,
+ * asynchronously, with back-off (about 10 s in all). Pooled reading connections keep a short
+ * busy timeout: in WAL mode they meet a busy database only while a WAL file is being reset.
  *
  * A statement that met SQLITE_BUSY is not reset by the driver: its connection keeps it "in
  * progress" (and can keep a lock) until it is garbage-collected, and a later transaction on that
@@ -28,6 +31,7 @@ const WRITE_SQL = /^\s*(insert|update|delete|replace|create|drop|alter|with|prag
  * error, before the retry; reads never meet a busy database in WAL mode and keep the pool.
  */
 const SHORT_BUSY_MS = 25;
+const WRITER_BUSY_MS = 0;
 
 function isBusy(e: unknown): boolean {
   const code = (e as { code?: string }).code ?? "";
@@ -35,8 +39,8 @@ function isBusy(e: unknown): boolean {
 }
 
 async function retryBusy<T>(run: () => Promise<T>, afterBusy: () => void = () => undefined): Promise<T> {
-  let waitMs = 5;
-  for (let spent = 0; ; spent += waitMs, waitMs = Math.min(200, waitMs * 2)) {
+  let waitMs = 2;
+  for (let spent = 0; ; spent += waitMs, waitMs = Math.min(100, waitMs * 2)) {
     try {
       return await run();
     } catch (e) {
@@ -160,7 +164,7 @@ export function openDb(url: string, authToken?: string): Db {
   const raw = createClient({ url, authToken, timeout: local ? SHORT_BUSY_MS : 5000 });
   // an in-memory database exists on one connection only: its writes cannot move to another
   const inMemory = /^file::memory:|^file:$|^:memory:/.test(url);
-  const openWriter = inMemory ? () => raw : () => createClient({ url, authToken, timeout: SHORT_BUSY_MS, concurrency: 1 });
+  const openWriter = inMemory ? () => raw : () => createClient({ url, authToken, timeout: WRITER_BUSY_MS, concurrency: 1 });
   const client = local ? serialiseWrites(raw, openWriter) : raw;
   return drizzle(client, { schema }) as Db;
 }

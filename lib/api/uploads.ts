@@ -1,8 +1,9 @@
 import "server-only";
-import { ANALYSIS_RATE_HZ, decodeAudio, EngineError } from "@/lib/engine";
+import { EngineError } from "@/lib/engine/errors";
 import { uploadLimits } from "@/lib/config";
 import { AppError } from "@/lib/errors";
 import { sniffAudio } from "@/lib/storage/sniff";
+import { checkAudioOffThread } from "./decode-thread";
 import type { NewTake } from "@/db/takes";
 
 const ENGINE_MESSAGES: Partial<Record<string, string>> = {
@@ -76,11 +77,9 @@ export async function readUpload(request: Request): Promise<Omit<NewTake, "studi
 
   let decoded;
   try {
-    // The decode is tens of milliseconds of synchronous work: let the requests already waiting
-    // (note reads, progress polls) go first, so a burst of uploads does not hold them all up.
-    await new Promise<void>((resolve) => setImmediate(resolve));
-    // checked at the analysis rate, so a long upload does not hold a full-rate copy in memory
-    decoded = await decodeAudio(analysisBytes, { maxDurationSec: limits.maxDurationSec, resampleToHz: ANALYSIS_RATE_HZ });
+    // every sample is read (a truncated file or NaN samples answer 422 now, not in the job), on
+    // a thread of its own: tens of milliseconds per take would otherwise hold up every request
+    decoded = await checkAudioOffThread(analysisBytes, limits.maxDurationSec);
   } catch (e) {
     if (e instanceof EngineError) {
       if (e.code === "too_long") {

@@ -23,9 +23,14 @@ export function sha256(bytes: Uint8Array): string {
   return createHash("sha256").update(bytes).digest("hex");
 }
 
+/** The same digest computed on libuv's thread pool (Web Crypto), so a 200 MB upload does not hold up the event loop. */
+export async function sha256Async(bytes: Uint8Array): Promise<string> {
+  return Buffer.from(await crypto.subtle.digest("SHA-256", bytes as Uint8Array<ArrayBuffer>)).toString("hex");
+}
+
 /** Writes bytes atomically (temp file + rename) and returns the key. */
 export async function storeFile(takeId: string, kind: "original" | "analysis", ext: string, bytes: Uint8Array): Promise<{ key: string; sha256: string }> {
-  const hash = sha256(bytes);
+  const hash = await sha256Async(bytes);
   const key = `${takeId}/${kind}-${hash}.${ext}`;
   const full = storagePath(key);
   await mkdir(path.dirname(full), { recursive: true });

@@ -18,7 +18,7 @@ export const GET = route(async (request, { params }: Ctx) => {
     revision: rev === null ? undefined : Number(rev),
     curves: url.searchParams.get("curves") === "1",
   });
-  return new Response(body, { headers: { "content-type": "application/json" } });
+  return new Response(body as BodyInit, { headers: { "content-type": "application/json", "content-length": String(body.byteLength) } });
 });
 
 /** Saves corrected notes as the next revision; 409 when baseRevision is not the latest. */

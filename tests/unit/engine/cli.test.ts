@@ -7,7 +7,7 @@ import { fileURLToPath } from "node:url";
 import m from "@tonejs/midi";
 
 const root = fileURLToPath(new URL("../../../", import.meta.url));
-const run = (args: string[]) => spawnSync(process.execPath, ["--import", "tsx", join(root, "scripts/transcribe.ts"), ...args], { cwd: root, encoding: "utf8" });
+const run = (args: string[]) => spawnSync(process.execPath, [join(root, "scripts/transcribe-cli.mjs"), ...args], { cwd: root, encoding: "utf8" });
 
 describe("command line", () => {
   const tmp = mkdtempSync(join(tmpdir(), "tapernote-cli-"));

@@ -59,6 +59,16 @@ function pieces(): Piece[] {
       { voice: 1, instrument: "trumpet" as const, key: hi, onsetSec: 0.3 + i * 1.4, durSec: 1.1, bendCents: ch },
     ]),
   });
+  // the same dyads without bends: the sound set's own tuning of each note, which the bends add to
+  P.push({
+    name: "dyads",
+    description: "the mistuned piece's clarinet + trumpet dyads, without bends",
+    a4Hz: 440,
+    notes: mis.flatMap(([lo, , hi], i) => [
+      { voice: 0, instrument: "clarinet" as const, key: lo, onsetSec: 0.3 + i * 1.4, durSec: 1.1 },
+      { voice: 1, instrument: "trumpet" as const, key: hi, onsetSec: 0.3 + i * 1.4, durSec: 1.1 },
+    ]),
+  });
   // whole takes tuned to A4 = 442 and 415 Hz, and the same take at 440 Hz: the sound set's
   // own tuning (its samples sit a few cents off 12-TET) is the same in all three, so the
   // estimate's error is its estimate at 442 or 415 against its estimate at 440

@@ -60,7 +60,8 @@ describe("tuning report on rendered takes", () => {
   // against a render of the same notes at A4 = 440 Hz without bends: for the reference pitch,
   // the shift FluidSynth really rendered, measured without the engine by scripts/render-shift.py
   // (numpy FFT cross-correlation against the 440 render: +7.00 c for 442 Hz, whose nominal
-  // +7.85 c FluidSynth applies in whole cents; −101.12 c for 415 Hz). A take at 415 Hz is a
+  // +7.85 c comes out in whole cents: FluidSynth quantises pitch so, ../shared/eval/README.md;
+  // −101.12 c for 415 Hz). A take at 415 Hz is a
   // semitone below 440 within 1.3 c and cannot be told from a flat 440 take by its sound alone:
   // the estimate is compared modulo a semitone (the teacher sets 415 for a baroque-pitch take).
   const RENDERED_SHIFT_CENTS: Record<string, number> = { a442: 7.0, a415: -101.12 };

@@ -73,7 +73,8 @@ describe("transcription of rendered fixtures", () => {
     // The sound set's samples sit a few cents off 12-TET, the same in all three renders, so the
     // estimate is judged against the 440-Hz render's. The shifts FluidSynth really rendered are
     // measured without the engine by scripts/render-shift.py (numpy FFT cross-correlation):
-    // +7.00 c for 442 Hz (nominal +7.85: FluidSynth applies the bend in whole cents), −101.12 c
+    // +7.00 c for 442 Hz (nominal +7.85: FluidSynth quantises pitch to whole cents, ../shared/eval/
+    // README.md), −101.12 c
     // for 415 Hz (nominal −101.27; reported as the reference a semitone up, −1.12 c).
     const cents = (name: string) => 1200 * Math.log2(results.get(name)!.out.referenceHz / 440);
     const base = cents("a440");

@@ -2,7 +2,7 @@
 import { useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useRouter, useSearchParams } from "next/navigation";
-import { useEffect, useMemo, useRef, useState } from "react";
+import { useDeferredValue, useEffect, useMemo, useRef, useState } from "react";
 import { Alert, Button, Card, DeleteForGoodDialog, EmptyState, Mono, PageHeader, Spinner } from "@/components/ui";
 import { ApiClientError } from "@/lib/client/api";
 import { takeKeys } from "@/lib/client/query-keys";
@@ -68,6 +68,10 @@ export function TakeView({
   }, [stamp, takeId, projectId, queryClient]);
 
   const initialSettings = useMemo(() => startingSettings(analysis?.settings), [analysis?.settings]);
+  // The recording and the roll come first: the cards below them (the notes as a table, teaching,
+  // the analyses, re-analyse) render in a pass of their own right after, not in the server's
+  // HTML nor in hydration, so the roll is not kept waiting for hundreds of table rows.
+  const showBelow = useDeferredValue(true, false);
 
   if (take.isPending) {
     return (
@@ -145,48 +149,52 @@ export function TakeView({
         />
       </Card>
 
-      {analysis?.state === "ready" ? analysisCard : null}
+      {showBelow ? (
+        <>
+          {analysis?.state === "ready" ? analysisCard : null}
 
-      <Card
-        title="Notes"
-        description={
-          notes.data
-            ? notes.data.source === "revision"
-              ? <>Revision <Mono>{notes.data.revision}</Mono> · A4 = <Mono>{notes.data.referenceHz.toFixed(1)} Hz</Mono></>
-              : <>The analysis’s draft · A4 = <Mono>{notes.data.referenceHz.toFixed(1)} Hz</Mono></>
-            : undefined
-        }
-      >
-        {notes.isPending ? (
-          <Spinner label="Loading the notes" />
-        ) : notes.isError ? (
-          <Alert tone="error" title="The notes could not be loaded" action={<Button size="sm" variant="secondary" onClick={() => notes.refetch()}>Try again</Button>}>
-            {notes.error.message}
-          </Alert>
-        ) : notes.data ? (
-          <div className="space-y-3">
-            {focusSec !== null ? <FocusedNotes notes={notes.data.notes} atSec={focusSec} /> : null}
-            <NotesTable notes={notes.data} />
-          </div>
-        ) : (
-          <p className="text-sm text-ink-muted">
-            {isRunning(analysis) ? "The notes appear here when the analysis is ready." : analysis?.state === "failed" ? "No notes: the analysis failed." : "No notes yet."}
-          </p>
-        )}
-      </Card>
+          <Card
+            title="Notes"
+            description={
+              notes.data
+                ? notes.data.source === "revision"
+                  ? <>Revision <Mono>{notes.data.revision}</Mono> · A4 = <Mono>{notes.data.referenceHz.toFixed(1)} Hz</Mono></>
+                  : <>The analysis’s draft · A4 = <Mono>{notes.data.referenceHz.toFixed(1)} Hz</Mono></>
+                : undefined
+            }
+          >
+            {notes.isPending ? (
+              <Spinner label="Loading the notes" />
+            ) : notes.isError ? (
+              <Alert tone="error" title="The notes could not be loaded" action={<Button size="sm" variant="secondary" onClick={() => notes.refetch()}>Try again</Button>}>
+                {notes.error.message}
+              </Alert>
+            ) : notes.data ? (
+              <div className="space-y-3">
+                {focusSec !== null ? <FocusedNotes notes={notes.data.notes} atSec={focusSec} /> : null}
+                <NotesTable notes={notes.data} />
+              </div>
+            ) : (
+              <p className="text-sm text-ink-muted">
+                {isRunning(analysis) ? "The notes appear here when the analysis is ready." : analysis?.state === "failed" ? "No notes: the analysis failed." : "No notes yet."}
+              </p>
+            )}
+          </Card>
 
-      <TakeTeachingPanel takeId={t.id} projectId={projectId} canEdit={canEdit} />
+          <TakeTeachingPanel takeId={t.id} projectId={projectId} canEdit={canEdit} />
 
-      <Card title="Analyses" description="Every run of the engine over this take, newest first." flush>
-        <div className="px-5 pb-4">
-          <AnalysesTable takeId={t.id} canEdit={canEdit} />
-        </div>
-      </Card>
+          <Card title="Analyses" description="Every run of the engine over this take, newest first." flush>
+            <div className="px-5 pb-4">
+              <AnalysesTable takeId={t.id} canEdit={canEdit} />
+            </div>
+          </Card>
 
-      {canEdit ? (
-        <Card title="Re-analyse" description="Run the engine again with other settings. The earlier analyses are kept.">
-          <ReanalyseForm takeId={t.id} initial={initialSettings} />
-        </Card>
+          {canEdit ? (
+            <Card title="Re-analyse" description="Run the engine again with other settings. The earlier analyses are kept.">
+              <ReanalyseForm takeId={t.id} initial={initialSettings} />
+            </Card>
+          ) : null}
+        </>
       ) : null}
 
       {canExport ? <ExportDialog takeId={t.id} open={exporting} onClose={() => setExporting(false)} canBuy={canBuy} /> : null}

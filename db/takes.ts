@@ -6,6 +6,7 @@ import { analysis, draft, project, revision, take } from "./schema";
 import { enqueueAnalysis, latestAnalyses, latestAnalysis } from "./analyses";
 import type { AnalysisDto, TakeDto } from "@/lib/schemas/takes";
 import { AppError, conflict, notFound } from "@/lib/errors";
+import { toNoteRows } from "@/lib/music/note-rows";
 import { deleteTakeFiles, storeFile } from "@/lib/storage/files";
 import type { NoteDto } from "@/lib/schemas/notes";
 
@@ -256,9 +257,10 @@ const notesCache = new Map<string, string>();
  * The GET /notes body as JSON text. One small query finds which revision or draft is "the
  * notes" now; the serialised body of that version is kept in a bounded in-process cache, so
  * repeated reads (players, scripts) parse and serialise nothing. A new revision or draft has a
- * new key, so the cache never serves stale notes.
+ * new key, so the cache never serves stale notes. With `rows`, the same answer with its notes as
+ * rows (lib/music/note-rows), for the take page's own HTML.
  */
-export async function getTakeNotesBody(studioId: string, takeId: string, opts: { revision?: number; curves?: boolean } = {}): Promise<string> {
+export async function getTakeNotesBody(studioId: string, takeId: string, opts: { revision?: number; curves?: boolean; rows?: boolean } = {}): Promise<string> {
   const [version] = await db()
     .select({
       // explicit aliases: unqualified column names inside a subquery would bind to the inner table
@@ -271,7 +273,7 @@ export async function getTakeNotesBody(studioId: string, takeId: string, opts: {
   if (!version) throw notFound("This take");
   // a revision's notes never change; the draft's (revision 0 or no revision yet) change with each analysis
   const revisionKey = opts.revision ?? version.latestRevision ?? 0;
-  const key = `${takeId}|${revisionKey}|${revisionKey === 0 ? (version.latestDraft ?? "") : ""}|${opts.curves ? 1 : 0}`;
+  const key = `${takeId}|${revisionKey}|${revisionKey === 0 ? (version.latestDraft ?? "") : ""}|${opts.curves ? 1 : 0}|${opts.rows ? 1 : 0}`;
   const hit = notesCache.get(key);
   if (hit !== undefined) {
     notesCache.delete(key);
@@ -279,12 +281,13 @@ export async function getTakeNotesBody(studioId: string, takeId: string, opts: {
     return hit;
   }
   const notes = await getTakeNotes(studioId, takeId, { revision: opts.revision });
-  const body = JSON.stringify({
+  const answer = {
     source: notes.source,
     ...(notes.revision !== undefined ? { revision: notes.revision } : {}),
     referenceHz: notes.referenceHz,
     notes: opts.curves ? notes.notes : notes.notes.map(({ pitchCurve: _curve, ...n }) => n),
-  });
+  };
+  const body = JSON.stringify(opts.rows ? toNoteRows(answer) : answer);
   notesCache.set(key, body);
   if (notesCache.size > NOTES_CACHE_MAX) notesCache.delete(notesCache.keys().next().value!);
   return body;

@@ -4,12 +4,14 @@ import { useMemo, type ReactNode } from "react";
 import { takeKeys } from "@/lib/client/query-keys";
 import { reportKeys } from "@/components/report/keys";
 import type { CurveNotesDto } from "@/components/report/types";
+import { fromNoteRows, type WithNoteRows } from "@/lib/music/note-rows";
 import type { TakeNotesDto } from "./types";
 
 /**
  * What the take page's server part read for the browser: the take (`GET /api/v1/takes/{id}`'s
- * answer) and its notes with pitch curves (`…/notes?curves=1`'s, null while there are none),
- * as the JSON texts the API sends, and when they were read (ms since the epoch).
+ * answer) and its notes with pitch curves (`…/notes?curves=1`'s, its notes as rows, see
+ * lib/music/note-rows; null while there are none), as JSON texts, and when they were read (ms
+ * since the epoch).
  */
 export type TakePageInitial = { at: number; take: string; curves: string | null };
 
@@ -24,7 +26,7 @@ export function TakePageData({ takeId, initial, children }: { takeId: string; in
     const client = new QueryClient();
     const at = { updatedAt: initial.at };
     client.setQueryData(takeKeys.detail(takeId), JSON.parse(initial.take), at);
-    const curves = initial.curves === null ? null : (JSON.parse(initial.curves) as CurveNotesDto);
+    const curves = initial.curves === null ? null : fromNoteRows<CurveNotesDto>(JSON.parse(initial.curves) as WithNoteRows<CurveNotesDto>);
     client.setQueryData(reportKeys.curves(takeId), curves, at);
     // the same notes as `…/notes` answers them: without the curves
     const plain: TakeNotesDto | null = curves && { ...curves, notes: curves.notes.map(({ pitchCurve: _c, ...n }) => n) };

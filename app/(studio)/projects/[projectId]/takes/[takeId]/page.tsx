@@ -40,7 +40,7 @@ async function takePageInitial(actor: Actor, studioId: string, takeId: string): 
     if (isAppError(e) && e.code === "not_found") return null;
     throw e;
   };
-  const [take, curves] = await Promise.all([getTake(studioId, takeId).catch(missing), getTakeNotesBody(studioId, takeId, { curves: true }).catch(missing)]);
+  const [take, curves] = await Promise.all([getTake(studioId, takeId).catch(missing), getTakeNotesBody(studioId, takeId, { curves: true, rows: true }).catch(missing)]);
   if (!take) return null;
   return { at: Date.now(), take: JSON.stringify({ take, analysis: take.analysis }), curves };
 }

@@ -6,6 +6,7 @@ import { analysis, draft, project, revision, take } from "./schema";
 import { enqueueAnalysis, latestAnalyses, latestAnalysis } from "./analyses";
 import type { AnalysisDto, TakeDto } from "@/lib/schemas/takes";
 import { AppError, conflict, notFound } from "@/lib/errors";
+import { toNoteRows } from "@/lib/music/note-rows";
 import { deleteTakeFiles, storeFile } from "@/lib/storage/files";
 import type { NoteDto } from "@/lib/schemas/notes";
 
@@ -256,10 +257,11 @@ const notesCache = new Map<string, Uint8Array>();
  * The GET /notes body as UTF-8 JSON bytes. One small query finds which revision or draft is "the
  * notes" now; the serialised body of that version is kept in a bounded in-process cache, so
  * repeated reads (players, scripts) parse, serialise and encode nothing (kept as bytes: encoding
- * the text again for every answer was a tenth of the server's time under load). A new revision or draft has a
- * new key, so the cache never serves stale notes.
+ * the text again for every answer was a tenth of the server's time under load). A new revision
+ * or draft has a new key, so the cache never serves stale notes. With `rows`, the same answer
+ * with its notes as rows (lib/music/note-rows), for the take page's own HTML.
  */
-export async function getTakeNotesBody(studioId: string, takeId: string, opts: { revision?: number; curves?: boolean } = {}): Promise<Uint8Array> {
+export async function getTakeNotesBody(studioId: string, takeId: string, opts: { revision?: number; curves?: boolean; rows?: boolean } = {}): Promise<Uint8Array> {
   const [version] = await db()
     .select({
       // explicit aliases: unqualified column names inside a subquery would bind to the inner table
@@ -272,7 +274,7 @@ export async function getTakeNotesBody(studioId: string, takeId: string, opts: {
   if (!version) throw notFound("This take");
   // a revision's notes never change; the draft's (revision 0 or no revision yet) change with each analysis
   const revisionKey = opts.revision ?? version.latestRevision ?? 0;
-  const key = `${takeId}|${revisionKey}|${revisionKey === 0 ? (version.latestDraft ?? "") : ""}|${opts.curves ? 1 : 0}`;
+  const key = `${takeId}|${revisionKey}|${revisionKey === 0 ? (version.latestDraft ?? "") : ""}|${opts.curves ? 1 : 0}|${opts.rows ? 1 : 0}`;
   const hit = notesCache.get(key);
   if (hit !== undefined) {
     notesCache.delete(key);
@@ -280,12 +282,13 @@ export async function getTakeNotesBody(studioId: string, takeId: string, opts: {
     return hit;
   }
   const notes = await getTakeNotes(studioId, takeId, { revision: opts.revision });
-  const body = new TextEncoder().encode(JSON.stringify({
+  const answer = {
     source: notes.source,
     ...(notes.revision !== undefined ? { revision: notes.revision } : {}),
     referenceHz: notes.referenceHz,
     notes: opts.curves ? notes.notes : notes.notes.map(({ pitchCurve: _curve, ...n }) => n),
-  }));
+  };
+  const body = new TextEncoder().encode(JSON.stringify(opts.rows ? toNoteRows(answer) : answer));
   notesCache.set(key, body);
   if (notesCache.size > NOTES_CACHE_MAX) notesCache.delete(notesCache.keys().next().value!);
   return body;

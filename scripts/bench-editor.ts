@@ -6,7 +6,11 @@
  * replaced by a revision of 5 000 notes (seeded, 4 voices, MIDI 36–96, spread over the take).
  * Then, on the take page:
  *   - first paint: from the start of navigation, and from the roll's mount, until the roll has
- *     drawn the notes (the roll's probe `window.__tapernoteRollStats`, see PianoRoll.tsx);
+ *     drawn the notes (the roll's probe `window.__tapernoteRollStats`, see PianoRoll.tsx). The
+ *     target's three loads each start from a blank tab, as when a take is opened afresh; three
+ *     reloads follow, each started as soon as the previous load drew its notes, so they also pay
+ *     for that load's leftovers (its recording still loading and decoding, its spectrogram being
+ *     made, the cards below its roll rendering): printed beside, not held to the target;
  *   - pan and zoom: wheel events over the roll (Shift+wheel pans, Ctrl+wheel zooms), one per
  *     animation frame; the roll's own draw time per frame (median, p95) and the interval
  *     between animation frames while it happens (median → frames per second).
@@ -88,8 +92,8 @@ async function main() {
     if (put.status() !== 201) throw new Error(`saving the 5 000 notes answered ${put.status()}: ${await put.text()}`);
 
     const url = `${base}/projects/${project.project.id}/takes/${take.id}`;
-    const firstPaints: { fromNavigationMs: number; fromMountMs: number; mountMs: number; responseEndMs: number; domContentLoadedMs: number }[] = [];
-    for (let run = 0; run < 3; run++) {
+    type FirstPaint = { fromNavigationMs: number; fromMountMs: number; mountMs: number; responseEndMs: number; domContentLoadedMs: number };
+    const load = async (): Promise<FirstPaint> => {
       await page.goto(url);
       await page.waitForFunction(() => window.__tapernoteRollStats?.firstNotesPaintMs != null, null, { timeout: 60_000 });
       const s = (await page.evaluate(() => window.__tapernoteRollStats))!;
@@ -97,8 +101,16 @@ async function main() {
         const n = performance.getEntriesByType("navigation")[0] as PerformanceNavigationTiming;
         return { responseEndMs: n.responseEnd, domContentLoadedMs: n.domContentLoadedEventEnd };
       });
-      firstPaints.push({ fromNavigationMs: s.firstNotesPaintMs!, fromMountMs: s.firstNotesPaintMs! - (s.mountMs ?? 0), mountMs: s.mountMs ?? NaN, ...nav });
+      return { fromNavigationMs: s.firstNotesPaintMs!, fromMountMs: s.firstNotesPaintMs! - (s.mountMs ?? 0), mountMs: s.mountMs ?? NaN, ...nav };
+    };
+    // opened afresh (the target), then reloaded at once, while the previous load still works
+    const firstPaints: FirstPaint[] = [];
+    for (let run = 0; run < 3; run++) {
+      await page.goto("about:blank");
+      firstPaints.push(await load());
     }
+    const reloads: FirstPaint[] = [];
+    for (let run = 0; run < 3; run++) reloads.push(await load());
 
     // pan and zoom over the middle of the roll, one wheel event per animation frame
     const roll = page.getByTestId("piano-roll");
@@ -138,10 +150,12 @@ async function main() {
     });
 
     const nav = firstPaints.map((f) => f.fromNavigationMs);
+    const renav = reloads.map((f) => f.fromNavigationMs);
     const mount = firstPaints.map((f) => f.fromMountMs);
     console.log(`piano roll, ${NOTES} notes on a ${DURATION_SEC / 60}-minute take, headless Chromium (${firstPaints.length} loads)`);
     console.log(`  first paint from navigation: median ${pct(nav, 50).toFixed(0)} ms (runs ${nav.map((x) => x.toFixed(0)).join(", ")}) — target < 1000 ms`);
     console.log(`  first paint from the roll's mount: median ${pct(mount, 50).toFixed(0)} ms`);
+    console.log(`  reloaded at once, while the previous load still decodes and renders: median ${pct(renav, 50).toFixed(0)} ms (runs ${renav.map((x) => x.toFixed(0)).join(", ")})`);
     console.log(
       `  on the way (medians from navigation): page answered ${pct(firstPaints.map((f) => f.responseEndMs), 50).toFixed(0)} ms, DOM ready ${pct(firstPaints.map((f) => f.domContentLoadedMs), 50).toFixed(0)} ms, roll mounted ${pct(firstPaints.map((f) => f.mountMs), 50).toFixed(0)} ms`,
     );

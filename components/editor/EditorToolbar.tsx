@@ -1,4 +1,5 @@
 "use client";
+import { useSyncExternalStore } from "react";
 import { Button, cx } from "@/components/ui";
 import type { PianoRollTool } from "@/components/piano-roll";
 import { TOOL_KEYS } from "./shortcuts";
@@ -40,9 +41,13 @@ export type ToolbarProps = {
   onResetCents: () => void;
 };
 
+const noChange = () => () => {};
+/** ⌘ on Apple keyboards, else Ctrl; the server renders "Ctrl", the browser its own after hydration. */
+const appleModifier = () => (/Mac|iPhone|iPad/.test(navigator.platform) ? "⌘" : "Ctrl");
+
 /** The editing tools, undo/redo and the clipboard. Listeners do not get it. */
 export function EditorToolbar(p: ToolbarProps) {
-  const mod = typeof navigator !== "undefined" && /Mac|iPhone|iPad/.test(navigator.platform) ? "⌘" : "Ctrl";
+  const mod = useSyncExternalStore(noChange, appleModifier, () => "Ctrl");
   return (
     <div className="flex flex-wrap items-center gap-x-4 gap-y-2" role="toolbar" aria-label="Piano roll tools">
       <div role="radiogroup" aria-label="Tool" className="flex overflow-hidden rounded-md border border-rule bg-surface shadow-sm">

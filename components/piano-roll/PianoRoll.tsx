@@ -1,5 +1,5 @@
 "use client";
-import { useCallback, useEffect, useRef, type PointerEvent } from "react";
+import { useCallback, useEffect, useLayoutEffect, useRef, type PointerEvent } from "react";
 import {
   EMPTY_SELECTION,
   MIN_NOTE_SEC,
@@ -124,6 +124,7 @@ export function PianoRoll({
   const theme = useRef<RollTheme | null>(null);
   const raf = useRef(0);
   const dirty = useRef({ base: true, top: true });
+  const timeFitted = useRef(false);
 
   const editable = !readOnly && !!onEdit;
   // the latest props, for handlers and the frame callback
@@ -143,6 +144,16 @@ export function PianoRoll({
 
   const paint = useCallback(() => {
     raf.current = 0;
+    if (!timeFitted.current && size.current.widthPx > 0) {
+      // a fresh time view (nobody has zoomed yet, nor fitted it, as the timeline around the roll
+      // does) starts showing the first 30 s, or the whole take
+      timeFitted.current = true;
+      const tv = props.current.timeView;
+      const s = tv.get();
+      if (s.window.startSec === 0 && s.window.pxPerSec === 100 && s.durationSec > 0) {
+        tv.setWindow({ startSec: 0, pxPerSec: (size.current.widthPx - KEYBOARD_PX) / Math.min(s.durationSec, 30) });
+      }
+    }
     const v = viewport();
     const base = baseRef.current;
     const top = topRef.current;
@@ -211,7 +222,8 @@ export function PianoRoll({
     [paint],
   );
 
-  useEffect(() => {
+  // (a layout effect: it runs before the first frame, so before the first paint)
+  useLayoutEffect(() => {
     const stats = rollStats();
     stats.mountMs = performance.now();
     stats.firstNotesPaintMs = null;
@@ -252,26 +264,24 @@ export function PianoRoll({
     request("base");
   }, [notes, selection, grid, meter, outlines, tool, readOnly, request]);
 
-  // size: follow the element; the first size fits the notes' pitch range
-  useEffect(() => {
+  // size: measured at mount, so the notes are drawn in the first frame that shows the roll (not
+  // a frame later, when the ResizeObserver first reports), then followed; the first size fits the
+  // notes' pitch range
+  useLayoutEffect(() => {
     const canvas = baseRef.current;
     if (!canvas) return;
-    const ro = new ResizeObserver(([entry]) => {
-      const widthPx = Math.round(entry!.contentRect.width);
-      const h = Math.round(entry!.contentRect.height);
-      if (widthPx === 0 || h === 0) return;
+    const resize = (widthPx: number, h: number): boolean => {
+      if (widthPx === 0 || h === 0) return false;
+      if (pitchView.current && size.current.widthPx === widthPx && size.current.heightPx === h) return false;
       size.current = { widthPx, heightPx: h };
-      const tv = props.current.timeView;
-      tv.setAreaWidth(widthPx - KEYBOARD_PX);
-      if (!pitchView.current) {
-        pitchView.current = fitPitch(props.current.notes, h);
-        // a fresh time view (nobody has zoomed yet) starts showing the first 30 s, or the whole take
-        const s = tv.get();
-        if (s.window.startSec === 0 && s.window.pxPerSec === 100 && s.durationSec > 0) {
-          tv.setWindow({ startSec: 0, pxPerSec: (widthPx - KEYBOARD_PX) / Math.min(s.durationSec, 30) });
-        }
-      } else pitchView.current = clampPitch(pitchView.current, h);
-      request("base");
+      props.current.timeView.setAreaWidth(widthPx - KEYBOARD_PX);
+      pitchView.current = pitchView.current ? clampPitch(pitchView.current, h) : fitPitch(props.current.notes, h);
+      return true;
+    };
+    resize(canvas.clientWidth, canvas.clientHeight);
+    request("base");
+    const ro = new ResizeObserver(([entry]) => {
+      if (resize(Math.round(entry!.contentRect.width), Math.round(entry!.contentRect.height))) request("base");
     });
     ro.observe(canvas);
     return () => ro.disconnect();

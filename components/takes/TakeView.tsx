@@ -2,26 +2,24 @@
 import { useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useRouter, useSearchParams } from "next/navigation";
-import { useEffect, useMemo, useRef, useState } from "react";
+import dynamic from "next/dynamic";
+import { useDeferredValue, useEffect, useRef, useState } from "react";
 import { Alert, Button, Card, DeleteForGoodDialog, EmptyState, Mono, PageHeader, Spinner } from "@/components/ui";
 import { ApiClientError } from "@/lib/client/api";
 import { takeKeys } from "@/lib/client/query-keys";
-import { AnalysesTable } from "./AnalysesTable";
 import { AnalysisStatus } from "./AnalysisStatus";
 import { formatBytes, formatChannels, formatDuration, formatSampleRate } from "./format";
-import { NotesTable } from "./NotesTable";
-import { ReanalyseForm, startingSettings } from "./ReanalyseForm";
 import { isRunning } from "./types";
 import { useDeleteTake } from "./use-delete-take";
 import { ExportDialog } from "@/components/export/ExportDialog";
-import { TakeTeachingPanel } from "./TakeTeachingPanel";
-import { FocusedNotes } from "./FocusedNotes";
 import { TakePianoRoll } from "./TakePianoRoll";
 import { useNotes } from "./use-notes";
 import { useCurveNotes } from "@/components/report/use-curve-notes";
 import { useTake } from "./use-take";
 import { takeDeleteMessage } from "./take-delete";
 import { useTimeView } from "@/components/timeline/time-view";
+
+const TakeDetails = dynamic(() => import("./TakeDetails").then((m) => m.TakeDetails));
 
 /** The take page: header, analysis with live progress, player, notes, analyses, re-analyse. */
 export function TakeView({
@@ -67,7 +65,10 @@ export function TakeView({
     void queryClient.invalidateQueries({ queryKey: takeKeys.list(projectId) });
   }, [stamp, takeId, projectId, queryClient]);
 
-  const initialSettings = useMemo(() => startingSettings(analysis?.settings), [analysis?.settings]);
+  // The recording and the roll come first: the cards below them (the notes as a table, teaching,
+  // the analyses, re-analyse) render in a pass of their own right after, not in the server's
+  // HTML nor in hydration, and their code loads apart, so the roll is not kept waiting for them.
+  const showBelow = useDeferredValue(true, false);
 
   if (take.isPending) {
     return (
@@ -145,48 +146,8 @@ export function TakeView({
         />
       </Card>
 
-      {analysis?.state === "ready" ? analysisCard : null}
-
-      <Card
-        title="Notes"
-        description={
-          notes.data
-            ? notes.data.source === "revision"
-              ? <>Revision <Mono>{notes.data.revision}</Mono> · A4 = <Mono>{notes.data.referenceHz.toFixed(1)} Hz</Mono></>
-              : <>The analysis’s draft · A4 = <Mono>{notes.data.referenceHz.toFixed(1)} Hz</Mono></>
-            : undefined
-        }
-      >
-        {notes.isPending ? (
-          <Spinner label="Loading the notes" />
-        ) : notes.isError ? (
-          <Alert tone="error" title="The notes could not be loaded" action={<Button size="sm" variant="secondary" onClick={() => notes.refetch()}>Try again</Button>}>
-            {notes.error.message}
-          </Alert>
-        ) : notes.data ? (
-          <div className="space-y-3">
-            {focusSec !== null ? <FocusedNotes notes={notes.data.notes} atSec={focusSec} /> : null}
-            <NotesTable notes={notes.data} />
-          </div>
-        ) : (
-          <p className="text-sm text-ink-muted">
-            {isRunning(analysis) ? "The notes appear here when the analysis is ready." : analysis?.state === "failed" ? "No notes: the analysis failed." : "No notes yet."}
-          </p>
-        )}
-      </Card>
-
-      <TakeTeachingPanel takeId={t.id} projectId={projectId} canEdit={canEdit} />
-
-      <Card title="Analyses" description="Every run of the engine over this take, newest first." flush>
-        <div className="px-5 pb-4">
-          <AnalysesTable takeId={t.id} canEdit={canEdit} />
-        </div>
-      </Card>
-
-      {canEdit ? (
-        <Card title="Re-analyse" description="Run the engine again with other settings. The earlier analyses are kept.">
-          <ReanalyseForm takeId={t.id} initial={initialSettings} />
-        </Card>
+      {showBelow ? (
+        <TakeDetails takeId={t.id} projectId={projectId} canEdit={canEdit} analysis={analysis} focusSec={focusSec} analysisCard={analysis?.state === "ready" ? analysisCard : null} />
       ) : null}
 
       {canExport ? <ExportDialog takeId={t.id} open={exporting} onClose={() => setExporting(false)} canBuy={canBuy} /> : null}

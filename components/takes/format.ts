@@ -41,4 +41,8 @@ export function formatSeconds(seconds: number): string {
   return Number.isFinite(seconds) ? seconds.toFixed(3) : "—";
 }
 
-export const dateTimeFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short" });
+let dateTime: Intl.DateTimeFormat | null = null;
+/** Date and time, e.g. "2 Dec 2026, 04:11"; the formatter is made on first use (making one is slow, and the take page needs none before its roll is drawn). */
+export const dateTimeFormat = {
+  format: (date: Date | number): string => (dateTime ??= new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short" })).format(date),
+};

@@ -1,5 +1,5 @@
 "use client";
-import { useEffect, useRef, type ReactNode } from "react";
+import { useLayoutEffect, useRef, type ReactNode } from "react";
 import { useTakeAudio } from "./audio-data";
 import { useElementWidth } from "./canvas-view";
 import type { PlayNote } from "./schedule";
@@ -45,9 +45,10 @@ export function TakeTimeline({ takeId, audioUrl, durationSec, referenceHz, notes
   };
   useSpaceToPlay(player.toggle);
 
-  // The widest view's time area; on first sight, the first 20 s (or the whole take) across it.
+  // The widest view's time area; on first sight, the first 20 s (or the whole take) across it
+  // (before the first frame, so the roll inside draws that window from the start).
   const fitted = useRef(false);
-  useEffect(() => {
+  useLayoutEffect(() => {
     if (width <= TIMELINE_GUTTER_PX) return;
     timeView.setAreaWidth(width - TIMELINE_GUTTER_PX);
     if (!fitted.current) {

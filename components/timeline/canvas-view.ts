@@ -4,16 +4,16 @@
  * when the window or the data change and an overlay (playhead, loop) when those change, and the
  * wheel gestures that write the shared time view.
  */
-import { useEffect, useRef, useState, type RefObject } from "react";
+import { useEffect, useLayoutEffect, useRef, useState, type RefObject } from "react";
 import { readTheme, type RollTheme } from "@/components/piano-roll/theme";
 import { TIMELINE_GUTTER_PX, type TimeView, type TimeViewState } from "./time-view";
 
 export type CanvasSize = { widthPx: number; heightPx: number; dpr: number };
 
-/** The CSS size of an element, kept up to date. */
+/** The CSS size of an element, kept up to date; measured before the first frame that shows it. */
 export function useElementWidth(ref: RefObject<HTMLElement | null>): number {
   const [width, setWidth] = useState(0);
-  useEffect(() => {
+  useLayoutEffect(() => {
     const el = ref.current;
     if (!el) return;
     const ro = new ResizeObserver(([entry]) => setWidth(Math.round(entry!.contentRect.width)));

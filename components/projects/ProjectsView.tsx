@@ -11,6 +11,7 @@ import {
   Mono,
   PageHeader,
   createDataTableColumns,
+  PendingLinkHint,
 } from "@/components/ui";
 import { ProjectForm } from "./ProjectForm";
 import { useCreateProject } from "./use-create-project";
@@ -39,6 +40,7 @@ export function ProjectsView({ studioName, canEdit }: { studioName: string; canE
           cell: (c) => (
             <Link href={`/projects/${c.row.original.id}`} className="font-medium underline-offset-2 hover:underline">
               {c.getValue()}
+              <PendingLinkHint />
             </Link>
           ),
         }),

@@ -1,7 +1,7 @@
 "use client";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
-import { cx } from "@/components/ui";
+import { cx, PendingLinkHint } from "@/components/ui";
 
 const LINKS = [
   { href: "/projects", label: "Projects" },
@@ -28,6 +28,7 @@ export function StudioNav() {
             )}
           >
             {l.label}
+            <PendingLinkHint />
           </Link>
         );
       })}

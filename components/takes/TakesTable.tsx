@@ -10,6 +10,7 @@ import {
   EmptyState,
   Mono,
   createDataTableColumns,
+  PendingLinkHint,
 } from "@/components/ui";
 import { dateTimeFormat, formatDuration } from "./format";
 import type { TakeDto } from "./types";
@@ -34,6 +35,7 @@ export function TakesTable({ projectId, canEdit }: { projectId: string; canEdit:
           cell: (c) => (
             <Link href={`/projects/${projectId}/takes/${c.row.original.id}`} className="font-medium underline-offset-2 hover:underline">
               {c.getValue()}
+              <PendingLinkHint />
             </Link>
           ),
         }),

@@ -45,3 +45,4 @@ export { Select, type SelectProps } from "./Select";
 export { Spinner, type SpinnerProps, type SpinnerSize } from "./Spinner";
 export { Textarea, type TextareaProps } from "./Textarea";
 export { cx } from "./cx";
+export { PendingLinkHint } from "./PendingLinkHint";

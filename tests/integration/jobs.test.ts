@@ -158,8 +158,8 @@ describe("analysis jobs", () => {
     await expect(requestCancel("another-studio", queued.id)).rejects.toMatchObject({ code: "not_found" });
     await expect(getAnalysis("another-studio", queued.id)).rejects.toMatchObject({ code: "not_found" });
 
-    // 20 s at a 2 ms hop keeps the engine busy for a second or more
-    const long = await seedTake(app.db, toneWav(20, CHORD_HZ));
+    // two minutes at a 2 ms hop keep the engine busy for several seconds (20 s had become about one)
+    const long = await seedTake(app.db, toneWav(120, CHORD_HZ));
     const job = await enqueue(long.takeId, long.studioId, { hopMs: 2 });
     await withRunner({ concurrency: 1 }, async (r) => {
       await waitForAnalysis(app.db, job.id, (row) => row.state === "analysing" && row.progressPercent >= 5);
@@ -213,7 +213,9 @@ describe("analysis jobs", () => {
   });
 
   it("stops an attempt that runs past the time limit and fails it with the limit named", async () => {
-    const seeded = await seedTake(app.db, toneWav(20, CHORD_HZ));
+    // two minutes at a 2 ms hop: several seconds of analysis, far past the 1-second limit (a
+    // 20-second take analysed within the second once the engine got faster)
+    const seeded = await seedTake(app.db, toneWav(120, CHORD_HZ));
     const job = await enqueue(seeded.takeId, seeded.studioId, { hopMs: 2 });
     await withRunner({ concurrency: 1, jobTimeoutMs: 1000 }, async () => {
       await waitForAnalysis(app.db, job.id, (r) => r.state === "failed" || r.state === "ready");
@@ -224,7 +226,8 @@ describe("analysis jobs", () => {
   });
 
   it("puts running jobs back in the queue when the runner stops, and another runner finishes them", async () => {
-    const seeded = await seedTake(app.db, toneWav(20, CHORD_HZ));
+    // a minute at a 2 ms hop: a few seconds of analysis, so the first runner stops it midway
+    const seeded = await seedTake(app.db, toneWav(60, CHORD_HZ));
     const job = await enqueue(seeded.takeId, seeded.studioId, { hopMs: 2 });
     await withRunner({ concurrency: 1 }, async () => {
       await waitForAnalysis(app.db, job.id, (r) => r.state === "analysing" && r.progressPercent > 0);

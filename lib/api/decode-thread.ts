@@ -1,6 +1,7 @@
 import path from "node:path";
 import { pathToFileURL } from "node:url";
-import { Worker } from "node:worker_threads";
+import type { Worker } from "node:worker_threads";
+import { spawnTsWorker } from "@/lib/jobs/ts-worker";
 import { EngineError, type EngineErrorCode } from "@/lib/engine/errors";
 import { AppError } from "@/lib/errors";
 import type { DecodeCheckReply, DecodeCheckRequest } from "./decode-worker";
@@ -19,14 +20,13 @@ let nextId = 1;
 
 /**
  * The thread is started on the first upload and kept. Worker threads do not inherit tsx's module
- * hooks and Next's server bundle has no use for the engine's sources, so the thread registers
- * tsx itself and loads `decode-worker.ts` from the project folder (the server runs there).
+ * hooks and Next's server bundle has no use for the engine's sources, so the thread loads
+ * `decode-worker.ts` through tsx from the project folder (the server runs there).
  */
 function decodeThread(): Worker {
   if (thread) return thread;
   const entry = pathToFileURL(path.join(process.cwd(), "lib", "api", "decode-worker.ts")).href;
-  const code = `import { tsImport } from "tsx/esm/api";\nawait tsImport(${JSON.stringify(entry)}, ${JSON.stringify(entry)});\n`;
-  const worker = new Worker(code, { eval: true, execArgv: ["--conditions=react-server"] });
+  const worker = spawnTsWorker(entry);
   worker.unref();
   worker.on("message", (reply: DecodeCheckReply) => {
     const job = pending.get(reply.id);

@@ -1,7 +1,8 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
 import os from "node:os";
-import { Worker } from "node:worker_threads";
+import type { Worker } from "node:worker_threads";
+import { spawnTsWorker } from "./ts-worker";
 import {
   CANCELLED,
   claimNext,
@@ -63,20 +64,8 @@ const DEFAULT_JOB_TIMEOUT_MS = 30 * 60_000;
 
 const workerEntry = new URL("./analysis-worker.ts", import.meta.url).href;
 
-/**
- * Worker threads do not inherit tsx's module hooks on Node.js 20, so each thread registers
- * them itself (tsx's `tsImport`) before loading the worker module. `--conditions=react-server`
- * keeps module resolution the same as in the runner process.
- */
 function spawnWorker(memoryMb: number | undefined): Worker {
-  const code =
-    `import { tsImport } from "tsx/esm/api";\n` +
-    `await tsImport(${JSON.stringify(workerEntry)}, ${JSON.stringify(import.meta.url)});\n`;
-  return new Worker(code, {
-    eval: true,
-    execArgv: ["--conditions=react-server"],
-    ...(memoryMb ? { resourceLimits: { maxOldGenerationSizeMb: memoryMb } } : {}),
-  });
+  return spawnTsWorker(workerEntry, memoryMb ? { resourceLimits: { maxOldGenerationSizeMb: memoryMb } } : {});
 }
 
 export class AnalysisRunner {

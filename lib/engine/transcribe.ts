@@ -124,16 +124,15 @@ export async function transcribe(
   const maxPeaks = PEAKS_PER_REGISTER * regs.length;
   const pf = new Float32Array(maxPeaks);
   const pa = new Float32Array(maxPeaks);
-  const est = new MultiPitchEstimator(
-    {
-      lowMidi: settings.pitchRange.lowMidi,
-      highMidi: settings.pitchRange.highMidi,
-      voiceLimit: V,
-      sensitivityDb: settings.sensitivityDb,
-      maxFreqHz: 7000,
-    },
-    maxPeaks,
-  );
+  // the frames' pitch search and the attack spectra's use the same settings
+  const pitchSearch = {
+    lowMidi: settings.pitchRange.lowMidi,
+    highMidi: settings.pitchRange.highMidi,
+    voiceLimit: V,
+    sensitivityDb: settings.sensitivityDb,
+    maxFreqHz: 7000,
+  };
+  const est = new MultiPitchEstimator(pitchSearch, maxPeaks);
   const high = regs[regs.length - 1];
   const flux = new SpectralFlux(Math.floor(50 / high.spec.binHz), Math.ceil(6000 / high.spec.binHz));
   const store = new PeakStore(frames, PEAKS_PER_REGISTER, high.loHz, high.hiHz);
@@ -142,13 +141,7 @@ export async function transcribe(
     maxPeaks,
     hopSec,
     regs.map((r) => ({ hiHz: r.hiHz, frameSec: r.frameSec })),
-    {
-      lowMidi: settings.pitchRange.lowMidi,
-      highMidi: settings.pitchRange.highMidi,
-      voiceLimit: V,
-      sensitivityDb: settings.sensitivityDb,
-      maxFreqHz: 7000,
-    },
+    pitchSearch,
   );
   const progressEvery = Math.max(1, Math.floor(frames / 20));
   for (let t = 0; t < frames; t++) {

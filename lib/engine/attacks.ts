@@ -35,6 +35,11 @@ export interface Attack {
   /** The attack spectrum: frequencies (sorted) and amplitudes of the new energy. */
   riseHz: Float32Array;
   riseAmp: Float32Array;
+  /** The merged peaks (sorted) of the frames just after and just before the onset, register by register. */
+  afterHz: Float32Array;
+  afterAmp: Float32Array;
+  beforeHz: Float32Array;
+  beforeAmp: Float32Array;
 }
 
 /** New energy (amplitude) of an attack within ±40 cents of fHz (0 if none). */
@@ -79,6 +84,10 @@ export class AttackAnalyser {
   private readonly outL: Float32Array;
   private readonly outS: Float32Array;
   private readonly voices: number;
+  private readonly af: Float32Array;
+  private readonly aa: Float32Array;
+  private readonly bf: Float32Array;
+  private readonly ba: Float32Array;
 
   constructor(
     frames: number,
@@ -108,6 +117,10 @@ export class AttackAnalyser {
     this.est = new MultiPitchEstimator({ continuityBonus: 1, ...cfg }, maxPeaks);
     this.rf = new Float32Array(maxPeaks);
     this.ra = new Float32Array(maxPeaks);
+    this.af = new Float32Array(maxPeaks);
+    this.aa = new Float32Array(maxPeaks);
+    this.bf = new Float32Array(maxPeaks);
+    this.ba = new Float32Array(maxPeaks);
     this.outF = new Float32Array(cfg.voiceLimit);
     this.outL = new Float32Array(cfg.voiceLimit);
     this.outS = new Float32Array(cfg.voiceLimit);
@@ -146,17 +159,31 @@ export class AttackAnalyser {
     if (v <= s / k) return;
     // the attack spectrum, register by register
     let n = 0;
+    let nA = 0;
+    let nB = 0;
     let lo = 0;
     for (let r = 0; r < this.hiHz.length; r++) {
       const hi = this.hiHz[r];
       const ta = Math.min(last, c + this.after[r]);
       const tb = Math.max(0, c - this.before[r]);
+      const sb = (tb % this.R) * this.cap;
+      const nb = this.ringN[tb % this.R];
+      for (let i = 0; i < nb && nB < this.cap; i++) {
+        const f = this.ringF[sb + i];
+        if (f < lo || f >= hi) continue;
+        this.bf[nB] = f;
+        this.ba[nB++] = this.ringA[sb + i];
+      }
       const sa = (ta % this.R) * this.cap;
       const na = this.ringN[ta % this.R];
       for (let i = 0; i < na; i++) {
         const f = this.ringF[sa + i];
         if (f < lo || f >= hi) continue;
         const a = this.ringA[sa + i];
+        if (nA < this.cap) {
+          this.af[nA] = f;
+          this.aa[nA++] = a;
+        }
         let b = 0;
         for (let tt = Math.max(0, tb - 1); tt <= tb; tt++) b = Math.max(b, this.ampNear(tt, f));
         if (a < 1.41 * b) continue;
@@ -192,7 +219,9 @@ export class AttackAnalyser {
       const l = this.outL[i];
       newShare[i] = e > 0 ? Math.min(1, (l * l) / e) : 0;
     }
-    this.attacks.push({ frame: c, odf: v, f0Hz: this.outF.slice(0, count), level: this.outL.slice(0, count), newShare, f0Share, parts, riseHz: this.rf.slice(0, n), riseAmp: this.ra.slice(0, n) });
+    this.attacks.push({ frame: c, odf: v, f0Hz: this.outF.slice(0, count), level: this.outL.slice(0, count), newShare, f0Share, parts, riseHz: this.rf.slice(0, n), riseAmp: this.ra.slice(0, n),
+      afterHz: this.af.slice(0, nA), afterAmp: this.aa.slice(0, nA), beforeHz: this.bf.slice(0, nB), beforeAmp: this.ba.slice(0, nB),
+    });
   }
 
   /** Strongest new energy of the current attack spectrum within ±40 cents of f (0 if none). */

@@ -6,7 +6,9 @@ import { findPeaks, PeakScratch, PeakStore, type PeakParams } from "./peaks";
 import { MultiPitchEstimator } from "./multipitch";
 import { SpectralFlux, pickOnsets } from "./onsets";
 import { AttackAnalyser } from "./attacks";
-import { trackNotes, median, type FrameDetections } from "./notes";
+import { noteFeatures, checkNotes, NOTE_CHECK_THRESHOLD } from "./note-check";
+import { onsetCandidates, scoreCandidates, addRuleFeatures, type OnsetCandidate } from "./onset-model";
+import { trackNotes, median, type FrameDetections, type TrackedNote } from "./notes";
 import { steadyPitchHz, estimateReferenceHz, pitchAndCents, attackSkipSec } from "./tuning";
 import { midiToHz } from "../music/pitch";
 import type { CurvedNoteEvent } from "../music/note";
@@ -18,6 +20,12 @@ import type { CurvedNoteEvent } from "../music/note";
  * overlaps itself; the pitch curve at the frame hop (10 ms by default).
  */
 export type Note = CurvedNoteEvent;
+
+/** Looks inside the pipeline (training and diagnostics only). */
+export interface TranscribeInspector {
+  onCandidates?: (candidates: OnsetCandidate[], hopSec: number) => void;
+  onNotes?: (notes: readonly TrackedNote[], features: Float32Array[]) => void;
+}
 
 export interface Transcription {
   durationSec: number;
@@ -45,6 +53,12 @@ export function registerPlan(settings: Settings) {
 const PEAKS_PER_REGISTER = 48;
 
 /**
+ * Note-stage settings for proposing notes: shadows (octaves, twelfths) are not pruned and the
+ * level ranges are wide, because the note check decides those cases with more evidence.
+ */
+const PROPOSAL_TRACKING = { shadowDb: Infinity, concurrentRangeDb: 40, takeRangeDb: 60 } as const;
+
+/**
  * Transcribe a mono take into notes.
  * samples: mono, full scale ±1, at sampleRateHz (explicit). Pipeline: resample (SpeexDSP) →
  * per-register tapered spectra (fft.js) → peaks → concurrent pitches → notes → tuning.
@@ -55,6 +69,7 @@ export async function transcribe(
   sampleRateHz: number,
   settingsInput: SettingsInput | Settings = {},
   onProgress?: (fraction: number) => void,
+  inspect?: TranscribeInspector,
 ): Promise<Transcription> {
   const settings = parseSettings(settingsInput);
   checkSamples(samples, sampleRateHz);
@@ -173,13 +188,34 @@ export async function transcribe(
   }
   attacks.finish(frames - 1);
   const onsetFrames = pickOnsets(odf);
+  const sortedOdf = Float32Array.from(odf).sort();
+  const p95Odf = sortedOdf[Math.floor(0.95 * (sortedOdf.length - 1))] || 0;
   const frameLengthSecFor = (f0: number) => (f0 < regs[0].hiHz ? regs[0].frameSec : f0 < regs[1].hiHz ? regs[1].frameSec : regs[2].frameSec);
-  const tracked = trackNotes(det, odf, onsetFrames, {
+  // the note stage proposes generously (no shadow pruning, wide level ranges); the note check
+  // (note-check.ts) then judges every proposed note with the onset model's (onset-model.ts) help
+  const proposed = trackNotes(det, odf, onsetFrames, {
     hopSec,
     shortestNoteSec: settings.shortestNoteMs / 1000,
     frameLengthSecFor,
     attacks: attacks.attacks,
+    ...PROPOSAL_TRACKING,
   }, store);
+  const candidates = onsetCandidates(attacks.attacks, {
+    det,
+    lowMidi: settings.pitchRange.lowMidi,
+    highMidi: settings.pitchRange.highMidi,
+    p95Odf,
+    maxHz: 7000,
+    hopSec,
+    harmonicLevelDb: (t, f) => store.harmonicLevelDb(t, f),
+  });
+  addRuleFeatures(candidates, attacks.attacks, proposed, hopSec);
+  scoreCandidates(candidates);
+  inspect?.onCandidates?.(candidates, hopSec);
+  const noteX = noteFeatures(proposed, candidates, attacks.attacks, odf, p95Odf, hopSec);
+  inspect?.onNotes?.(proposed, noteX);
+  const noteP = checkNotes(noteX);
+  const tracked = proposed.filter((_, i) => noteP[i] >= NOTE_CHECK_THRESHOLD);
   onProgress?.(0.95);
   const notes: Note[] = [];
   const centsList: number[] = [];
@@ -312,3 +348,4 @@ function round(x: number, digits: number): number {
   const k = Math.pow(10, digits);
   return Math.round(x * k) / k;
 }
+

@@ -18,6 +18,7 @@
  * last frames' peaks, so the take's peaks are never all held.
  */
 import { MultiPitchEstimator, type MultiPitchConfig } from "./multipitch";
+import { firstAtOrAfter } from "./peaks";
 
 /** One attack: the onset frame, its detection-function value and the pitches that start there. */
 export interface Attack {
@@ -42,18 +43,18 @@ export interface Attack {
   beforeAmp: Float32Array;
 }
 
+/** Strongest amplitude within ±cents of fHz in a peak list sorted by frequency (0 if none). */
+export function strongestNear(hz: Float32Array, amp: Float32Array, fHz: number, ratio = 1.0234): number {
+  const lo = fHz / ratio;
+  const hi = fHz * ratio;
+  let best = 0;
+  for (let i = firstAtOrAfter(hz, lo); i < hz.length && hz[i] <= hi; i++) if (amp[i] > best) best = amp[i];
+  return best;
+}
+
 /** New energy (amplitude) of an attack within ±40 cents of fHz (0 if none). */
 export function riseNear(a: Attack, fHz: number): number {
-  const lo = fHz / 1.0234;
-  const hi = fHz * 1.0234;
-  let best = 0;
-  for (let i = 0; i < a.riseHz.length; i++) {
-    const f = a.riseHz[i];
-    if (f < lo) continue;
-    if (f > hi) break;
-    if (a.riseAmp[i] > best) best = a.riseAmp[i];
-  }
-  return best;
+  return strongestNear(a.riseHz, a.riseAmp, fHz);
 }
 
 export interface AttackRegister {

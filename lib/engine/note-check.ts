@@ -14,6 +14,8 @@
  */
 import type { Attack } from "./attacks";
 import type { TrackedNote } from "./notes";
+import { firstAtOrAfter } from "./peaks";
+import { hzToMidi } from "../music/pitch";
 import { scoreFeatures, type MlpWeights, type OnsetCandidate } from "./onset-model";
 import { NOTE_MODEL } from "./note-weights";
 
@@ -48,6 +50,7 @@ interface Info {
   off: number;
 }
 
+/** Upper median (the model was trained with it; notes.ts `median` averages the middle pair). */
 function medianOf(xs: ArrayLike<number>): number {
   const s = Array.from(xs).sort((a, b) => a - b);
   return s.length ? s[s.length >> 1] : 0;
@@ -64,7 +67,7 @@ export function noteFeatures(
   const info: Info[] = notes.map((n) => {
     let peak = 0;
     for (const l of n.level) peak = Math.max(peak, l);
-    return { midi: 69 + 12 * Math.log2((medianOf(n.f0Hz) || 440) / 440), levelDb: 20 * Math.log10(peak + 1e-12), on: n.onsetSec, off: n.offsetSec };
+    return { midi: hzToMidi(medianOf(n.f0Hz) || 440), levelDb: 20 * Math.log10(peak + 1e-12), on: n.onsetSec, off: n.offsetSec };
   });
   let takeDb = -200;
   for (const i of info) takeDb = Math.max(takeDb, i.levelDb);
@@ -74,7 +77,11 @@ export function noteFeatures(
     l.push(c);
     byMidi.set(c.midi, l);
   }
-  for (const l of byMidi.values()) l.sort((a, b) => a.frame - b.frame);
+  const framesOf = new Map<number, Int32Array>();
+  for (const [m, l] of byMidi) {
+    l.sort((a, b) => a.frame - b.frame);
+    framesOf.set(m, Int32Array.from(l, (c) => c.frame));
+  }
   const attackFrames = Int32Array.from(attacks, (a) => a.frame).sort();
   // notes by onset: the notes that can overlap a note, or end just before it, start within
   // (longest note + 2 s) before it
@@ -96,8 +103,8 @@ export function noteFeatures(
     const cover = new Float32Array(INTERVALS.length);
     const lvl = new Float32Array(INTERVALS.length).fill(-1);
     let prevGap = 2;
-    const from = lowerBound(onsets, me.on - longest - 2);
-    const to = lowerBound(onsets, me.off);
+    const from = firstAtOrAfter(onsets, me.on - longest - 2);
+    const to = firstAtOrAfter(onsets, me.off);
     for (let q0 = from; q0 < to; q0++) {
       const j = order[q0];
       if (j === i) continue;
@@ -136,14 +143,7 @@ export function noteFeatures(
     let pOn = -1;
     let pEarly = -1;
     const list = byMidi.get(Math.round(me.midi)) ?? [];
-    let l = 0;
-    let r = list.length;
-    while (l < r) {
-      const m = (l + r) >> 1;
-      if (list[m].frame < f - near) l = m + 1;
-      else r = m;
-    }
-    for (let q = l; q < list.length && list[q].frame <= f + early; q++) {
+    for (let q = firstAtOrAfter(framesOf.get(Math.round(me.midi)) ?? [], f - near); q < list.length && list[q].frame <= f + early; q++) {
       const c = list[q];
       if (Math.abs(c.frame - f) <= near) pOn = Math.max(pOn, c.probability);
       pEarly = Math.max(pEarly, c.probability);
@@ -155,7 +155,7 @@ export function noteFeatures(
     for (let t = Math.max(0, fo - 3); t <= Math.min(odf.length - 1, fo + 3); t++) o = Math.max(o, odf[t]);
     x[k++] = Math.log2((o + 1e-9) / (p95Odf + 1e-9)) / 4;
     let ad = 1;
-    const at = lowerBound(attackFrames, f);
+    const at = firstAtOrAfter(attackFrames, f);
     if (at < attackFrames.length) ad = Math.min(ad, (attackFrames[at] - f) * hopSec);
     if (at > 0) ad = Math.min(ad, (f - attackFrames[at - 1]) * hopSec);
     x[k++] = ad;
@@ -167,18 +167,6 @@ export function noteFeatures(
     }
     return x;
   });
-}
-
-/** First index of a sorted array whose value is ≥ x. */
-function lowerBound(a: ArrayLike<number>, x: number): number {
-  let l = 0;
-  let r = a.length;
-  while (l < r) {
-    const m = (l + r) >> 1;
-    if (a[m] < x) l = m + 1;
-    else r = m;
-  }
-  return l;
 }
 
 /** Probability that each note was played (one per note, in order). */

@@ -4,7 +4,7 @@
  * the track's own level rises), with a shortest note, onsets snapped to detected onsets and
  * offsets corrected for the frame length of the note's register.
  */
-import type { PeakStore } from "./peaks";
+import { firstAtOrAfter, type PeakStore } from "./peaks";
 import { riseNear, type Attack } from "./attacks";
 
 export interface FrameDetections {
@@ -21,6 +21,8 @@ export interface FrameDetections {
 export interface TrackingConfig {
   hopSec: number;
   shortestNoteSec: number;
+  /** 95th percentile of the detection function, when the caller has it (odfP95). */
+  p95Odf?: number;
   /** Frame length (s) of the register a fundamental falls in. */
   frameLengthSecFor: (f0Hz: number) => number;
   /** A track continues to a detection within this many cents. */
@@ -228,8 +230,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
   const out: TrackedNote[] = [];
   const hop = cfg.hopSec;
   // a re-articulation needs a real attack: a detection-function peak of at least this height
-  const sortedOdf = Float32Array.from(odf).sort();
-  const p95Odf = sortedOdf[Math.floor(0.95 * (sortedOdf.length - 1))] || 0;
+  const p95Odf = cfg.p95Odf ?? odfP95(odf);
   const splitOdf = (cfg.splitOdfFraction ?? 0.3) * p95Odf;
   const attackIx = cfg.attacks ? new AttackIndex(cfg.attacks, 0) : null;
   for (const tr of done) {
@@ -678,18 +679,6 @@ function mergeFragments(notes: TrackedNote[], cents: number, attackOf?: (n: Trac
   return out.filter((n) => n.hasOnset || n.offsetSec - n.onsetSec >= 0.3 || shown?.has(n)).sort((a, b) => a.onsetSec - b.onsetSec);
 }
 
-/** Index of the first element ≥ x of an ascending array (its length if none). */
-function firstAtOrAfter(xs: ArrayLike<number>, x: number): number {
-  let l = 0;
-  let r = xs.length;
-  while (l < r) {
-    const m = (l + r) >> 1;
-    if (xs[m] < x) l = m + 1;
-    else r = m;
-  }
-  return l;
-}
-
 /** Index of the first attack at or after frame t (attacks are in frame order). */
 function firstAttackAtOrAfter(attacks: Attack[], t: number): number {
   let l = 0;
@@ -835,6 +824,12 @@ function splitTrack(
   }
   segs.push([start, n]);
   return segs;
+}
+
+/** 95th percentile of the detection function (the scale of its onsets). */
+export function odfP95(odf: Float32Array): number {
+  const sorted = Float32Array.from(odf).sort();
+  return sorted[Math.floor(0.95 * (sorted.length - 1))] || 0;
 }
 
 export function median(xs: ArrayLike<number>): number {

@@ -15,7 +15,9 @@
  * by FluidSynth with three General MIDI sound sets, clean and with noise, reverb and a
  * telephone band, labelled with their MIDI notes (docs/engine.md, "Onset model").
  */
-import type { Attack } from "./attacks";
+import { strongestNear, type Attack } from "./attacks";
+import { firstAtOrAfter } from "./peaks";
+import { hzToMidi } from "../music/pitch";
 import type { FrameDetections } from "./notes";
 import { ONSET_MODEL } from "./onset-weights";
 
@@ -65,21 +67,7 @@ const FLOOR_DB = -60;
 const CENTS40 = Math.pow(2, 40 / 1200);
 const CENTS50 = Math.pow(2, 50 / 1200);
 
-/** Strongest amplitude within ±40 cents of f in a sorted peak list (0 if none). */
-function ampNear(hz: Float32Array, amp: Float32Array, f: number, ratio = CENTS40): number {
-  const lo = f / ratio;
-  const hi = f * ratio;
-  let l = 0;
-  let r = hz.length;
-  while (l < r) {
-    const m = (l + r) >> 1;
-    if (hz[m] < lo) l = m + 1;
-    else r = m;
-  }
-  let best = 0;
-  for (let i = l; i < hz.length && hz[i] <= hi; i++) if (amp[i] > best) best = amp[i];
-  return best;
-}
+const ampNear = strongestNear;
 
 /** Frequency of the strongest peak within ±50 cents of f (0 if none). */
 function freqNear(hz: Float32Array, amp: Float32Array, f: number): number {
@@ -87,8 +75,7 @@ function freqNear(hz: Float32Array, amp: Float32Array, f: number): number {
   const hi = f * CENTS50;
   let best = 0;
   let bf = 0;
-  for (let i = 0; i < hz.length; i++) {
-    if (hz[i] < lo) continue;
+  for (let i = firstAtOrAfter(hz, lo); i < hz.length; i++) {
     if (hz[i] > hi) break;
     if (amp[i] > best) {
       best = amp[i];
@@ -113,8 +100,6 @@ export interface OnsetCandidate {
   attack: number;
   frame: number;
   midi: number;
-  /** Fundamental (Hz) measured near the semitone after the onset (nominal when none). */
-  f0Hz: number;
   features: Float32Array;
   probability: number;
 }
@@ -216,7 +201,7 @@ export function attackCandidates(a: Attack, index: number, ctx: OnsetContext): O
     for (const d of [0.03, 0.08, 0.15, 0.25]) x[k++] = hl ? Math.max(-2, Math.min(2, (Math.max(-120, hl(fr(d), f0)) - hb) / 30)) : 0;
     x[k++] = Math.max(FLOOR_DB, hb - refDb) / 60;
     // rule features are filled in by addRuleFeatures
-    out.push({ attack: index, frame: a.frame, midi: m, f0Hz: f0, features: x, probability: 0 });
+    out.push({ attack: index, frame: a.frame, midi: m, features: x, probability: 0 });
   }
   return out;
 }
@@ -256,20 +241,10 @@ export function addRuleFeatures(
     const f = Array.from(n.f0Hz).sort((a, b) => a - b);
     let peak = 0;
     for (const l of n.level) peak = Math.max(peak, l);
-    return { onsetSec: n.onsetSec, offsetSec: n.offsetSec, midi: 69 + 12 * Math.log2((f[f.length >> 1] || 440) / 440), levelDb: 20 * Math.log10(peak + 1e-12) };
+    return { onsetSec: n.onsetSec, offsetSec: n.offsetSec, midi: hzToMidi(f[f.length >> 1] || 440), levelDb: 20 * Math.log10(peak + 1e-12) };
   });
   rule.sort((a, b) => a.onsetSec - b.onsetSec);
   const starts = rule.map((r) => r.onsetSec);
-  const lowerBound = (x: number) => {
-    let l = 0;
-    let r = starts.length;
-    while (l < r) {
-      const m = (l + r) >> 1;
-      if (starts[m] < x) l = m + 1;
-      else r = m;
-    }
-    return l;
-  };
   for (const c of cands) {
     const a = attacks[c.attack];
     const refDb = 20 * Math.log10(Math.max(maxOf(a.afterAmp), 1e-9));
@@ -281,7 +256,7 @@ export function addRuleFeatures(
     let held = 0;
     const rel = [0, 0, 0, 0];
     let here = 0;
-    for (let i = lowerBound(t - 3); i < rule.length && rule[i].onsetSec <= t + 0.05; i++) {
+    for (let i = firstAtOrAfter(starts, t - 3); i < rule.length && rule[i].onsetSec <= t + 0.05; i++) {
       const r = rule[i];
       const d = r.midi - c.midi;
       const near = Math.abs(r.onsetSec - t) <= 0.05;
@@ -324,16 +299,20 @@ export function scoreCandidates(cands: OnsetCandidate[], model: MlpWeights = ONS
   cands.forEach((c, i) => (c.probability = p[i]));
 }
 
+/** Each model's weights as typed arrays, made once. */
+const PACKED = new WeakMap<MlpWeights, { w1: Float32Array; b1: Float32Array; w2: Float32Array; mean: Float32Array; scale: Float32Array }>();
+
 /** An MLP's output for each feature vector: one hidden ReLU layer, logistic output. */
 export function scoreFeatures(rows: readonly Float32Array[], model: MlpWeights, inputs: number): Float32Array {
   const H = model.hidden;
   const D = model.inputs;
   if (D !== inputs) throw new Error(`model expects ${D} features, the code makes ${inputs}`);
-  const w1 = Float32Array.from(model.w1);
-  const b1 = Float32Array.from(model.b1);
-  const w2 = Float32Array.from(model.w2);
-  const mean = Float32Array.from(model.mean);
-  const scale = Float32Array.from(model.scale);
+  let packed = PACKED.get(model);
+  if (!packed) {
+    packed = { w1: Float32Array.from(model.w1), b1: Float32Array.from(model.b1), w2: Float32Array.from(model.w2), mean: Float32Array.from(model.mean), scale: Float32Array.from(model.scale) };
+    PACKED.set(model, packed);
+  }
+  const { w1, b1, w2, mean, scale } = packed;
   const z = new Float32Array(D);
   const out = new Float32Array(rows.length);
   for (let r = 0; r < rows.length; r++) {

@@ -147,3 +147,15 @@ export class PeakStore {
     return sum > 0 ? 20 * Math.log10(sum) : -200;
   }
 }
+
+/** Index of the first element ≥ x of an ascending array (its length if none). */
+export function firstAtOrAfter(xs: ArrayLike<number>, x: number): number {
+  let l = 0;
+  let r = xs.length;
+  while (l < r) {
+    const m = (l + r) >> 1;
+    if (xs[m] < x) l = m + 1;
+    else r = m;
+  }
+  return l;
+}

@@ -8,7 +8,7 @@ import { SpectralFlux, pickOnsets } from "./onsets";
 import { AttackAnalyser } from "./attacks";
 import { noteFeatures, checkNotes, NOTE_CHECK_THRESHOLD } from "./note-check";
 import { onsetCandidates, scoreCandidates, addRuleFeatures, type OnsetCandidate } from "./onset-model";
-import { trackNotes, median, type FrameDetections, type TrackedNote } from "./notes";
+import { trackNotes, median, odfP95, type FrameDetections, type TrackedNote } from "./notes";
 import { steadyPitchHz, estimateReferenceHz, pitchAndCents, attackSkipSec } from "./tuning";
 import { midiToHz } from "../music/pitch";
 import type { CurvedNoteEvent } from "../music/note";
@@ -188,8 +188,7 @@ export async function transcribe(
   }
   attacks.finish(frames - 1);
   const onsetFrames = pickOnsets(odf);
-  const sortedOdf = Float32Array.from(odf).sort();
-  const p95Odf = sortedOdf[Math.floor(0.95 * (sortedOdf.length - 1))] || 0;
+  const p95Odf = odfP95(odf);
   const frameLengthSecFor = (f0: number) => (f0 < regs[0].hiHz ? regs[0].frameSec : f0 < regs[1].hiHz ? regs[1].frameSec : regs[2].frameSec);
   // the note stage proposes generously (no shadow pruning, wide level ranges); the note check
   // (note-check.ts) then judges every proposed note with the onset model's (onset-model.ts) help
@@ -198,6 +197,7 @@ export async function transcribe(
     shortestNoteSec: settings.shortestNoteMs / 1000,
     frameLengthSecFor,
     attacks: attacks.attacks,
+    p95Odf,
     ...PROPOSAL_TRACKING,
   }, store);
   const candidates = onsetCandidates(attacks.attacks, {
@@ -348,4 +348,3 @@ function round(x: number, digits: number): number {
   const k = Math.pow(10, digits);
   return Math.round(x * k) / k;
 }
-

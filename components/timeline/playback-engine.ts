@@ -81,13 +81,18 @@ export type PlaybackStats = {
   latencyMs: number;
   /**
    * Times the page's thread was blocked for more than 100 ms (a scheduler tick or an animation
-   * frame that late), and the longest. Frames right after such a stall are not counted in the
-   * playhead figures (the page drew nothing meanwhile); notes are, through lateness.
+   * frame that late), and the longest. Notes are counted through lateness.
    */
   stalls: number;
   longestStallMs: number;
-  /** Frames where the playhead was more than 10 ms from the element's clock: [recording s, ms] (the first 40). */
-  spikes: [number, number][];
+  /**
+   * Frames left out of the playhead figures: those within 250 ms after a frame came more than
+   * 50 ms late (the page drew nothing meanwhile, and the element's own position, read from the
+   * media thread, can lag for a moment after such a gap).
+   */
+  settlingFrames: number;
+  /** Frames where the playhead was more than 10 ms from the element's clock: [recording s, ms, ms since the frame before] (the first 40). */
+  spikes: [number, number, number][];
 };
 
 /** The read-only probe on window.__tapernotePlayback (see TakeTimeline's TSDoc). */
@@ -126,7 +131,7 @@ declare global {
 }
 
 function emptyStats(): PlaybackStats {
-  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0, stalls: 0, longestStallMs: 0, spikes: [] };
+  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0, stalls: 0, longestStallMs: 0, settlingFrames: 0, spikes: [] };
 }
 
 function cautionSeen(): boolean {
@@ -177,6 +182,7 @@ export class PlaybackEngine {
   private lastReading = -1;
   private lastTickMs: number | null = null;
   private lastFrameMs: number | null = null;
+  private settleUntilMs = 0;
   /** Playback is inside the loop region (and wraps at its end). */
   private inLoop = false;
   private latencySmoothSec: number | null = null;
@@ -592,8 +598,11 @@ export class PlaybackEngine {
   private drawPlayhead(): void {
     const audio = this.audio;
     if (!audio || !this.state.playing) return;
-    const stalled = this.lastFrameMs !== null && performance.now() - this.lastFrameMs > 100;
-    this.lastFrameMs = performance.now();
+    const nowMs = performance.now();
+    const gapMs = this.lastFrameMs === null ? 0 : nowMs - this.lastFrameMs;
+    if (gapMs > 50) this.settleUntilMs = nowMs + 250;
+    const settling = nowMs < this.settleUntilMs;
+    this.lastFrameMs = nowMs;
     const heard = this.heardSec();
     if (!heard) return;
     const loop = this.view.get().loop;
@@ -605,12 +614,14 @@ export class PlaybackEngine {
     // output timestamp smoothly, so their difference saws up and down by a buffer's length
     this.latencySmoothSec = this.latencySmoothSec === null ? heard.latencySec : this.latencySmoothSec + 0.02 * (heard.latencySec - this.latencySmoothSec);
     const end = Number.isFinite(audio.duration) ? audio.duration : Infinity;
-    if (!stalled && !audio.paused && !audio.seeking && !audio.ended && audio.currentTime < end - 0.05 && audio.readyState >= 3) {
+    const measurable = !audio.paused && !audio.seeking && !audio.ended && audio.currentTime < end - 0.05 && audio.readyState >= 3;
+    if (measurable && settling) this.stats.settlingFrames++;
+    if (measurable && !settling) {
       const err = Math.abs(sec + this.latencySmoothSec - audio.currentTime) * 1000;
       const st = this.stats;
       st.frames++;
       this.playheadErrSum += err;
-      if (err > 10 && st.spikes.length < 40) st.spikes.push([+audio.currentTime.toFixed(3), +err.toFixed(1)]);
+      if (err > 10 && st.spikes.length < 40) st.spikes.push([+audio.currentTime.toFixed(3), +err.toFixed(1), +gapMs.toFixed(1)]);
       if (err > st.playheadMaxMs) {
         st.playheadMaxMs = err;
         st.playheadMaxAtSec = audio.currentTime;

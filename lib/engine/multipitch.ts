@@ -172,19 +172,25 @@ export class MultiPitchEstimator {
         }
       } else {
         // lazy greedy: residuals only shrink, so a candidate's last salience bounds its next
-        // one; re-evaluate the highest bound until no remaining bound can beat the best found
+        // one; re-evaluate in order of those bounds (highest first, ties by index) until no
+        // remaining bound can beat the best found
         const sal = this.sal;
-        const seen = this.order;
-        seen.fill(0);
-        for (;;) {
-          let c = -1;
-          let ub = bestS;
-          for (let j = 0; j < nC; j++) if (!seen[j] && !this.done[j] && sal[j] > ub) {
-            ub = sal[j];
-            c = j;
+        const order = this.order;
+        let m = 0;
+        for (let c = 0; c < nC; c++) {
+          if (this.done[c] || !(sal[c] > 0)) continue;
+          // insertion sort, descending and stable: candidates arrive in index order
+          let i = m++;
+          const v = sal[c];
+          while (i > 0 && sal[order[i - 1]] < v) {
+            order[i] = order[i - 1];
+            i--;
           }
-          if (c < 0) break;
-          seen[c] = 1;
+          order[i] = c;
+        }
+        for (let i = 0; i < m; i++) {
+          const c = order[i];
+          if (!(sal[c] > bestS)) break;
           const s = this.salienceOf(c, n, freqHz, count, outF0Hz, outOffset);
           sal[c] = s;
           if (s > bestS) {

@@ -12,7 +12,11 @@ import { playbackSteps } from "./playback";
 const { WaveFile } = wf;
 
 const app = await startApp();
-const browser = await openBrowser();
+// the app runs in its own process group: stop it when the browser cannot start, or it keeps the port
+const browser = await openBrowser().catch(async (e: unknown) => {
+  await app.stop();
+  throw e;
+});
 const { page } = browser;
 const errors: string[] = [];
 page.on("pageerror", (e) => errors.push(`pageerror: ${e.message}`));

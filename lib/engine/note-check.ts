@@ -13,7 +13,7 @@
  * same MLP form as the onset model (onset-model.ts); weights from scripts/train/.
  */
 import type { Attack } from "./attacks";
-import type { TrackedNote } from "./notes";
+import { median, type TrackedNote } from "./notes";
 import { firstAtOrAfter } from "./peaks";
 import { hzToMidi } from "../music/pitch";
 import { scoreFeatures, type MlpWeights, type OnsetCandidate } from "./onset-model";
@@ -50,12 +50,6 @@ interface Info {
   off: number;
 }
 
-/** Upper median (the model was trained with it; notes.ts `median` averages the middle pair). */
-function medianOf(xs: ArrayLike<number>): number {
-  const s = Array.from(xs).sort((a, b) => a - b);
-  return s.length ? s[s.length >> 1] : 0;
-}
-
 export function noteFeatures(
   notes: readonly TrackedNote[],
   cands: readonly OnsetCandidate[],
@@ -67,7 +61,7 @@ export function noteFeatures(
   const info: Info[] = notes.map((n) => {
     let peak = 0;
     for (const l of n.level) peak = Math.max(peak, l);
-    return { midi: hzToMidi(medianOf(n.f0Hz) || 440), levelDb: 20 * Math.log10(peak + 1e-12), on: n.onsetSec, off: n.offsetSec };
+    return { midi: hzToMidi(median(n.f0Hz) || 440), levelDb: 20 * Math.log10(peak + 1e-12), on: n.onsetSec, off: n.offsetSec };
   });
   let takeDb = -200;
   for (const i of info) takeDb = Math.max(takeDb, i.levelDb);
@@ -126,7 +120,7 @@ export function noteFeatures(
     }
     x[k++] = loudest > -200 ? Math.max(-40, Math.min(40, me.levelDb - loudest)) / 40 : 1;
     x[k++] = (me.midi - 64) / 36;
-    const mid = medianOf(n.f0Hz);
+    const mid = median(n.f0Hz);
     const cents = Array.from(n.f0Hz, (f) => 1200 * Math.log2(f / (mid || f)));
     cents.sort((a, b) => a - b);
     x[k++] = cents.length >= 4 ? Math.min(100, cents[Math.floor(0.9 * (cents.length - 1))] - cents[Math.floor(0.1 * (cents.length - 1))]) / 50 : 0;

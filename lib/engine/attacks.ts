@@ -78,6 +78,9 @@ export class AttackAnalyser {
   private readonly hiHz: Float32Array;
   /** Frames the analysis lags behind the frame loop. */
   readonly delay: number;
+  /** Half-widths (frames) of the local-maximum test and of the local mean. */
+  private readonly halfWidth: number;
+  private readonly meanHalfWidth: number;
   private readonly est: MultiPitchEstimator;
   private readonly rf: Float32Array;
   private readonly ra: Float32Array;
@@ -96,10 +99,13 @@ export class AttackAnalyser {
     hopSec: number,
     registers: readonly AttackRegister[],
     cfg: MultiPitchConfig,
-    /** Half-width (frames) of the local-maximum test and of the local mean. */
-    private readonly halfWidth = 3,
-    private readonly meanHalfWidth = 10,
+    /** Half-width (s) of the local-maximum test and of the local mean (3 and 10 frames at a 10 ms hop). */
+    halfWidthSec = 0.03,
+    meanHalfWidthSec = 0.1,
   ) {
+    this.halfWidth = Math.max(1, Math.round(halfWidthSec / hopSec));
+    const meanHalfWidth = Math.max(1, Math.round(meanHalfWidthSec / hopSec));
+    this.meanHalfWidth = meanHalfWidth;
     this.odf = new Float32Array(frames);
     this.before = Int32Array.from(registers, (r) => Math.ceil((0.5 * r.frameSec) / hopSec) + 1);
     this.after = Int32Array.from(registers, (r) => Math.ceil((0.5 * r.frameSec) / hopSec));

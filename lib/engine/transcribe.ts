@@ -187,7 +187,8 @@ export async function transcribe(
     if (onProgress && t % progressEvery === 0) onProgress(0.1 + (0.8 * t) / frames);
   }
   attacks.finish(frames - 1);
-  const onsetFrames = pickOnsets(odf);
+  // the detection function's peaks: a maximum over ±30 ms above the mean over ±100 ms
+  const onsetFrames = pickOnsets(odf, Math.max(1, Math.round(0.03 / hopSec)), Math.max(1, Math.round(0.1 / hopSec)));
   const p95Odf = odfP95(odf);
   const frameLengthSecFor = (f0: number) => (f0 < regs[0].hiHz ? regs[0].frameSec : f0 < regs[1].hiHz ? regs[1].frameSec : regs[2].frameSec);
   // the note stage proposes generously (no shadow pruning, wide level ranges); the note check

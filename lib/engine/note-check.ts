@@ -121,8 +121,7 @@ export function noteFeatures(
     x[k++] = loudest > -200 ? Math.max(-40, Math.min(40, me.levelDb - loudest)) / 40 : 1;
     x[k++] = (me.midi - 64) / 36;
     const mid = median(n.f0Hz);
-    const cents = Array.from(n.f0Hz, (f) => 1200 * Math.log2(f / (mid || f)));
-    cents.sort((a, b) => a - b);
+    const cents = Float64Array.from(n.f0Hz, (f) => 1200 * Math.log2(f / (mid || f))).sort();
     x[k++] = cents.length >= 4 ? Math.min(100, cents[Math.floor(0.9 * (cents.length - 1))] - cents[Math.floor(0.1 * (cents.length - 1))]) / 50 : 0;
     let sl = 0;
     let ll = 0;

@@ -277,14 +277,15 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
       // the earliest strong detected onset from a little before the first frame (a voice
       // competing at its attack is found late) to where the note's frames stop reaching back
       let onMax = 0;
-      for (const o of onsetFrames) {
-        if (o < t0 - back) continue;
+      const firstOn = firstAtOrAfter(onsetFrames, t0 - back);
+      for (let q = firstOn; q < onsetFrames.length; q++) {
+        const o = onsetFrames[q];
         if (o > t0 + look) break;
         if (odf[o] > onMax) onMax = odf[o];
       }
       let on = -1;
-      for (const o of onsetFrames) {
-        if (o < t0 - back) continue;
+      for (let q = firstOn; q < onsetFrames.length; q++) {
+        const o = onsetFrames[q];
         if (o > t0 + look) break;
         if (odf[o] >= 0.5 * onMax) {
           on = o;
@@ -302,7 +303,8 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         let limit = t0 - Math.round((cfg.backtrackSec ?? 2) / hop);
         // …but not past the last clear onset of the take before it: earlier, its partials
         // may be another voice's
-        for (const o of onsetFrames) {
+        for (let q = firstAtOrAfter(onsetFrames, limit + 3); q < onsetFrames.length; q++) {
+          const o = onsetFrames[q];
           if (o > t0) break;
           if (odf[o] >= (cfg.backtrackOdf ?? 2) * p95Odf) limit = Math.max(limit, o - 3);
         }
@@ -338,7 +340,10 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         }
         if (best >= 0) {
           let snap = -1;
-          for (const o of onsetFrames) if (Math.abs(o - best) <= 3 && (snap < 0 || Math.abs(o - best) < Math.abs(snap - best))) snap = o;
+          for (let q = firstAtOrAfter(onsetFrames, best - 3); q < onsetFrames.length && onsetFrames[q] <= best + 3; q++) {
+            const o = onsetFrames[q];
+            if (snap < 0 || Math.abs(o - best) < Math.abs(snap - best)) snap = o;
+          }
           // the steepest rise lies past the start of an attack: 20 ms earlier on average (measured
           // on rendered instruments, docs/engine.md)
           const envOnset = Math.max(0, (snap >= 0 ? snap : best) * hop - (cfg.attackLeadSec ?? 0.02));
@@ -351,7 +356,7 @@ export function trackNotes(det: FrameDetections, odf: Float32Array, onsetFrames:
         // a re-articulation split at a clear onset is an attack of its own (so the fragment
         // joining below does not glue it back onto the previous note)
         if (si > 0) {
-          for (const o of onsetFrames) if (Math.abs(o - t0) <= 3 && odf[o] >= clearOdf) hasOnset = true;
+          for (let q = firstAtOrAfter(onsetFrames, t0 - 3); q < onsetFrames.length && onsetFrames[q] <= t0 + 3; q++) if (odf[onsetFrames[q]] >= clearOdf) hasOnset = true;
         }
       }
       if (attackIx && onsetSec < t0 * hop - (cfg.attackCheckSec ?? 0.06)) {
@@ -833,7 +838,8 @@ export function odfP95(odf: Float32Array): number {
 }
 
 export function median(xs: ArrayLike<number>): number {
-  const a = Array.from(xs).sort((p, q) => p - q);
+  // a typed array sorts numerically, without a comparator call per step
+  const a = Float64Array.from(xs).sort();
   const n = a.length;
   if (n === 0) return NaN;
   return n % 2 ? a[(n - 1) >> 1] : 0.5 * (a[n / 2 - 1] + a[n / 2]);

@@ -238,7 +238,7 @@ export function addRuleFeatures(
   hopSec: number,
 ): void {
   const rule: RuleNote[] = notes.map((n) => {
-    const f = Array.from(n.f0Hz).sort((a, b) => a - b);
+    const f = n.f0Hz.slice().sort();
     let peak = 0;
     for (const l of n.level) peak = Math.max(peak, l);
     return { onsetSec: n.onsetSec, offsetSec: n.offsetSec, midi: hzToMidi(f[f.length >> 1] || 440), levelDb: 20 * Math.log10(peak + 1e-12) };

@@ -7,7 +7,7 @@ import { MultiPitchEstimator } from "./multipitch";
 import { SpectralFlux, pickOnsets } from "./onsets";
 import { AttackAnalyser } from "./attacks";
 import { noteFeatures, checkNotes, NOTE_CHECK_THRESHOLD } from "./note-check";
-import { onsetCandidates, scoreCandidates, addRuleFeatures, type OnsetCandidate } from "./onset-model";
+import { onsetCandidates, scoreCandidates, addRuleFeatures, type MlpWeights, type OnsetCandidate } from "./onset-model";
 import { trackNotes, median, odfP95, type FrameDetections, type TrackedNote } from "./notes";
 import { steadyPitchHz, estimateReferenceHz, pitchAndCents, attackSkipSec } from "./tuning";
 import { midiToHz } from "../music/pitch";
@@ -25,6 +25,9 @@ export type Note = CurvedNoteEvent;
 export interface TranscribeInspector {
   onCandidates?: (candidates: OnsetCandidate[], hopSec: number) => void;
   onNotes?: (notes: readonly TrackedNote[], features: Float32Array[]) => void;
+  /** Weights in place of the committed ones (training: after the features changed, the old weights no longer fit). */
+  onsetModel?: MlpWeights;
+  noteModel?: MlpWeights;
 }
 
 export interface Transcription {
@@ -211,11 +214,11 @@ export async function transcribe(
     harmonicLevelDb: (t, f) => store.harmonicLevelDb(t, f),
   });
   addRuleFeatures(candidates, attacks.attacks, proposed, hopSec);
-  scoreCandidates(candidates);
+  scoreCandidates(candidates, inspect?.onsetModel);
   inspect?.onCandidates?.(candidates, hopSec);
   const noteX = noteFeatures(proposed, candidates, attacks.attacks, odf, p95Odf, hopSec);
   inspect?.onNotes?.(proposed, noteX);
-  const noteP = checkNotes(noteX);
+  const noteP = checkNotes(noteX, inspect?.noteModel);
   const tracked = proposed.filter((_, i) => noteP[i] >= NOTE_CHECK_THRESHOLD);
   onProgress?.(0.95);
   const notes: Note[] = [];

@@ -233,7 +233,8 @@ def degrade(rng, raw, out):
     chain = {"clean": [], "pink": [], "white": [],
              "reverb": ["reverb", str(rng.randint(20, 60)), "50", str(rng.randint(30, 90)), "100", "8", "-4"],
              "phone": ["sinc", "300-3400", "rate", "-v", "8000"]}[kind]
-    subprocess.run(["sox", tmp, "-b", "16", out] + chain + ["gain", "-n", "-3"], check=True)
+    # -R: repeatable (the dither to 16 bits is seeded), so the set is the same from run to run
+    subprocess.run(["sox", "-R", tmp, "-b", "16", out] + chain + ["gain", "-n", "-3"], check=True)
     os.remove(tmp)
     return kind
 

@@ -91,6 +91,8 @@ export type PlaybackStats = {
    * media thread, can lag for a moment after such a gap).
    */
   settlingFrames: number;
+  /** Frames where the playhead was 20 ms or more from the element's clock. */
+  playheadOver20: number;
   /** Frames where the playhead was more than 10 ms from the element's clock: [recording s, ms, ms since the frame before] (the first 40). */
   spikes: [number, number, number][];
 };
@@ -131,7 +133,7 @@ declare global {
 }
 
 function emptyStats(): PlaybackStats {
-  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0, stalls: 0, longestStallMs: 0, settlingFrames: 0, spikes: [] };
+  return { frames: 0, playheadMaxMs: 0, playheadMeanMs: 0, playheadMaxAtSec: 0, notes: 0, lateMaxMs: 0, lateCount: 0, checked: 0, noteErrorMaxMs: 0, noteErrorMeanMs: 0, latencyMs: 0, stalls: 0, longestStallMs: 0, settlingFrames: 0, playheadOver20: 0, spikes: [] };
 }
 
 function cautionSeen(): boolean {
@@ -621,6 +623,7 @@ export class PlaybackEngine {
       const st = this.stats;
       st.frames++;
       this.playheadErrSum += err;
+      if (err >= 20) st.playheadOver20++;
       if (err > 10 && st.spikes.length < 40) st.spikes.push([+audio.currentTime.toFixed(3), +err.toFixed(1), +gapMs.toFixed(1)]);
       if (err > st.playheadMaxMs) {
         st.playheadMaxMs = err;

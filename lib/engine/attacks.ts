@@ -19,6 +19,7 @@
  */
 import { MultiPitchEstimator, type MultiPitchConfig } from "./multipitch";
 import { firstAtOrAfter } from "./peaks";
+import { framesFor, PEAK_HALF_WIDTH_SEC, MEAN_HALF_WIDTH_SEC } from "./onsets";
 
 /** One attack: the onset frame, its detection-function value and the pitches that start there. */
 export interface Attack {
@@ -99,12 +100,12 @@ export class AttackAnalyser {
     hopSec: number,
     registers: readonly AttackRegister[],
     cfg: MultiPitchConfig,
-    /** Half-width (s) of the local-maximum test and of the local mean (3 and 10 frames at a 10 ms hop). */
-    halfWidthSec = 0.03,
-    meanHalfWidthSec = 0.1,
+    /** Half-width (s) of the local-maximum test and of the local mean (as the onset picking's). */
+    halfWidthSec = PEAK_HALF_WIDTH_SEC,
+    meanHalfWidthSec = MEAN_HALF_WIDTH_SEC,
   ) {
-    this.halfWidth = Math.max(1, Math.round(halfWidthSec / hopSec));
-    const meanHalfWidth = Math.max(1, Math.round(meanHalfWidthSec / hopSec));
+    this.halfWidth = framesFor(halfWidthSec, hopSec);
+    const meanHalfWidth = framesFor(meanHalfWidthSec, hopSec);
     this.meanHalfWidth = meanHalfWidth;
     this.odf = new Float32Array(frames);
     this.before = Int32Array.from(registers, (r) => Math.ceil((0.5 * r.frameSec) / hopSec) + 1);

@@ -34,6 +34,15 @@ export class SpectralFlux {
   }
 }
 
+/** Half-widths (s) of the peak picking: a maximum over ±30 ms, above the mean over ±100 ms (3 and 10 frames at a 10 ms hop). */
+export const PEAK_HALF_WIDTH_SEC = 0.03;
+export const MEAN_HALF_WIDTH_SEC = 0.1;
+
+/** A span in seconds as a whole number of frames (at least one). */
+export function framesFor(sec: number, hopSec: number): number {
+  return Math.max(1, Math.round(sec / hopSec));
+}
+
 /**
  * Onset frames from a detection function: local maxima over ±`halfWidth` frames that exceed
  * `delta` + the mean over ±`meanHalfWidth` frames (Bello et al. 2005, §V-B adaptive threshold).

@@ -105,13 +105,12 @@ export class AttackAnalyser {
     meanHalfWidthSec = MEAN_HALF_WIDTH_SEC,
   ) {
     this.halfWidth = framesFor(halfWidthSec, hopSec);
-    const meanHalfWidth = framesFor(meanHalfWidthSec, hopSec);
-    this.meanHalfWidth = meanHalfWidth;
+    this.meanHalfWidth = framesFor(meanHalfWidthSec, hopSec);
     this.odf = new Float32Array(frames);
     this.before = Int32Array.from(registers, (r) => Math.ceil((0.5 * r.frameSec) / hopSec) + 1);
     this.after = Int32Array.from(registers, (r) => Math.ceil((0.5 * r.frameSec) / hopSec));
     this.hiHz = Float32Array.from(registers, (r) => r.hiHz);
-    let maxOff = meanHalfWidth;
+    let maxOff = this.meanHalfWidth;
     for (const a of this.after) maxOff = Math.max(maxOff, a);
     let maxBack = 0;
     for (const b of this.before) maxBack = Math.max(maxBack, b + 1);

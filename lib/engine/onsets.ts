@@ -44,11 +44,19 @@ export function framesFor(sec: number, hopSec: number): number {
 }
 
 /**
- * Onset frames from a detection function: local maxima over ±`halfWidth` frames that exceed
- * `delta` + the mean over ±`meanHalfWidth` frames (Bello et al. 2005, §V-B adaptive threshold).
- * `delta` is relative to the function's 99th-percentile value.
+ * Onset frames from a detection function at a hop of `hopSec`: local maxima over ±`halfWidthSec`
+ * that exceed `delta` + the mean over ±`meanHalfWidthSec` (Bello et al. 2005, §V-B adaptive
+ * threshold). `delta` is relative to the function's 99th-percentile value.
  */
-export function pickOnsets(odf: Float32Array, halfWidth = 3, meanHalfWidth = 10, delta = 0.06): Int32Array {
+export function pickOnsets(
+  odf: Float32Array,
+  hopSec: number,
+  halfWidthSec = PEAK_HALF_WIDTH_SEC,
+  meanHalfWidthSec = MEAN_HALF_WIDTH_SEC,
+  delta = 0.06,
+): Int32Array {
+  const halfWidth = framesFor(halfWidthSec, hopSec);
+  const meanHalfWidth = framesFor(meanHalfWidthSec, hopSec);
   const n = odf.length;
   if (n === 0) return new Int32Array(0);
   const sorted = Float32Array.from(odf).sort();

@@ -4,7 +4,7 @@ import { resample } from "./resample";
 import { SpectrumPlan } from "./stft";
 import { findPeaks, PeakScratch, PeakStore, type PeakParams } from "./peaks";
 import { MultiPitchEstimator } from "./multipitch";
-import { SpectralFlux, pickOnsets, framesFor, PEAK_HALF_WIDTH_SEC, MEAN_HALF_WIDTH_SEC } from "./onsets";
+import { SpectralFlux, pickOnsets } from "./onsets";
 import { AttackAnalyser } from "./attacks";
 import { noteFeatures, checkNotes, NOTE_CHECK_THRESHOLD } from "./note-check";
 import { onsetCandidates, scoreCandidates, addRuleFeatures, type MlpWeights, type OnsetCandidate } from "./onset-model";
@@ -190,7 +190,7 @@ export async function transcribe(
     if (onProgress && t % progressEvery === 0) onProgress(0.1 + (0.8 * t) / frames);
   }
   attacks.finish(frames - 1);
-  const onsetFrames = pickOnsets(odf, framesFor(PEAK_HALF_WIDTH_SEC, hopSec), framesFor(MEAN_HALF_WIDTH_SEC, hopSec));
+  const onsetFrames = pickOnsets(odf, hopSec);
   const p95Odf = odfP95(odf);
   const frameLengthSecFor = (f0: number) => (f0 < regs[0].hiHz ? regs[0].frameSec : f0 < regs[1].hiHz ? regs[1].frameSec : regs[2].frameSec);
   // the note stage proposes generously (no shadow pruning, wide level ranges); the note check

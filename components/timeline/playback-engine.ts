@@ -113,11 +113,15 @@ export type PlaybackProbe = {
   latencySec(): number;
   /**
    * The last ~0.74 s of what the graph rendered (44.1 kHz), the recording's and the notes' buses
-   * apart, read in the same instant, with the context time of the newest sample: for measuring
-   * the audible sync of notes and recording from the output itself. Taps the buses (two
-   * AnalyserNodes, which change nothing that is heard) on the first call; null before playback.
+   * apart, with the context time of the newest sample: for measuring the audible sync of notes
+   * and recording from the output itself. Taps the buses (two AnalyserNodes, which change nothing
+   * that is heard) on the first call; null before playback. The two taps are read one after the
+   * other while the audio thread renders on, so the recording's tap is read again after the
+   * notes'; `sameInstant` is false when the audio thread rendered in between on every one of a
+   * few tries (on a busy machine it can render several buffers at once, tens of ms, which would
+   * show as a false offset between the buses).
    */
-  heard(): { sampleRateHz: number; endContextSec: number; original: number[]; notes: number[] } | null;
+  heard(): { sampleRateHz: number; endContextSec: number; original: number[]; notes: number[]; sameInstant: boolean } | null;
   /** The shared time window (startSec at the gutter's edge, pxPerSec) and the loop. */
   timeWindow(): { startSec: number; pxPerSec: number; loop: { startSec: number; endSec: number } | null };
   /** The graph's gains now: recording, notes (after the listen mode and balance), master level. */
@@ -661,11 +665,18 @@ export class PlaybackEngine {
           g.T.connect(g.notes, this.taps.notes);
         }
         const o = new Float32Array(this.taps.original.fftSize);
+        const again = new Float32Array(this.taps.original.fftSize);
         const n = new Float32Array(this.taps.notes.fftSize);
-        const endContextSec = g.raw.currentTime;
-        this.taps.original.getFloatTimeDomainData(o);
-        this.taps.notes.getFloatTimeDomainData(n);
-        return { sampleRateHz: g.raw.sampleRate, endContextSec, original: Array.from(o), notes: Array.from(n) };
+        let endContextSec = 0;
+        let sameInstant = false;
+        for (let attempt = 0; attempt < 8 && !sameInstant; attempt++) {
+          endContextSec = g.raw.currentTime;
+          this.taps.original.getFloatTimeDomainData(o);
+          this.taps.notes.getFloatTimeDomainData(n);
+          this.taps.original.getFloatTimeDomainData(again);
+          sameInstant = o.every((x, i) => x === again[i]);
+        }
+        return { sampleRateHz: g.raw.sampleRate, endContextSec, original: Array.from(o), notes: Array.from(n), sameInstant };
       },
       gains: () => (this.graph ? { original: this.graph.original.gain.value, notes: this.graph.notes.gain.value, master: this.graph.master.gain.value } : null),
       stats: () => ({ ...this.stats, spikes: [...this.stats.spikes] }),
